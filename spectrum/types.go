@@ -1,0 +1,44 @@
+package spectrum
+
+// Spectrum is a measured or simulated 1D 1H trace on a ppm axis. Readers
+// return the points in ascending ppm order whatever the file's order.
+type Spectrum struct {
+	PPM      []float64 // ascending
+	Y        []float64 // same length as PPM
+	FieldMHz float64   // observe frequency; 0 when the file does not say
+	Nucleus  string    // "1H" unless the file says otherwise
+	Solvent  string    // as the file names it, e.g. "CDCl3"; "" when unknown
+	Title    string
+	Source   string // file path or other origin, for messages
+}
+
+// Peak is one picked maximum.
+type Peak struct {
+	PPM       float64 `json:"ppm"`
+	Intensity float64 `json:"intensity"`
+	SNR       float64 `json:"snr"`
+	WidthHz   float64 `json:"width_hz,omitempty"`
+}
+
+// Multiplet is a group of peaks that belong to one signal, with its region,
+// integral and first-order analysis.
+type Multiplet struct {
+	PPM          float64   `json:"ppm"`
+	FromPPM      float64   `json:"from_ppm"`
+	ToPPM        float64   `json:"to_ppm"`
+	Integral     float64   `json:"integral"`
+	Multiplicity string    `json:"multiplicity"`
+	JHz          []float64 `json:"j_hz"`
+	Peaks        int       `json:"peaks"`
+	PeakIndex    []int     `json:"-"` // indices into the peak list
+	RawArea      float64   `json:"-"` // area before relative scaling
+}
+
+// PeakList is the outcome of processing a spectrum. Its JSON form is fixed.
+type PeakList struct {
+	FieldMHz   float64     `json:"field_mhz"`
+	Points     int         `json:"points"`
+	Peaks      []Peak      `json:"peaks"`
+	Multiplets []Multiplet `json:"multiplets"`
+	Noise      float64     `json:"noise"`
+}
