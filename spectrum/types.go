@@ -10,6 +10,9 @@ type Spectrum struct {
 	Solvent  string    // as the file names it, e.g. "CDCl3"; "" when unknown
 	Title    string
 	Source   string // file path or other origin, for messages
+	// PeakTable holds the peaks of a file that carries a peak list instead
+	// of (or besides) a trace. PPM and Y are empty for a peak-list-only file.
+	PeakTable []Peak
 }
 
 // Peak is one picked maximum.
@@ -41,4 +44,9 @@ type PeakList struct {
 	Peaks      []Peak      `json:"peaks"`
 	Multiplets []Multiplet `json:"multiplets"`
 	Noise      float64     `json:"noise"`
+	// ReferencePPM is the shift the axis was moved by when referencing (0 if none).
+	ReferencePPM float64 `json:"reference_shift_ppm"`
+	// Trace is the processed (referenced, baseline-corrected) trace, for plots;
+	// nil when the input was a peak list.
+	Trace *Spectrum `json:"-"`
 }
