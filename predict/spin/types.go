@@ -1,14 +1,21 @@
 package spin
 
-// Group is a set of nuclei with one shift that are treated as equivalent
-// (chemically equivalent; Magnetic says whether they are also magnetically
-// equivalent, which allows composite-particle reduction).
+import "fmt"
+
+// Group is a set of magnetically equivalent nuclei: one shift, and the same
+// coupling from every member to every nucleus outside the group. Simulate
+// relies on this for the composite-particle reduction. Nuclei that are only
+// chemically equivalent (the AA'BB' protons of a para-disubstituted benzene)
+// must be given as separate groups with their own couplings.
 type Group struct {
 	Name     string
 	ShiftPPM float64
 	Count    int    // number of nuclei in the group, ≥ 1
 	Nucleus  string // "1H" (default when empty), "19F" or "31P"
 }
+
+// IsProton reports whether the group is observed in a 1H spectrum.
+func (g Group) IsProton() bool { return g.Nucleus == "" || g.Nucleus == "1H" }
 
 // Coupling is a scalar coupling between two groups, by index into
 // System.Groups. J between members of one group is not needed: it leaves
@@ -27,6 +34,32 @@ type System struct {
 // Mode chooses how a cluster of coupled spins is computed.
 type Mode int
 
+// String returns "auto", "first-order" or "exact".
+func (m Mode) String() string {
+	switch m {
+	case Auto:
+		return "auto"
+	case FirstOrder:
+		return "first-order"
+	case Exact:
+		return "exact"
+	}
+	return fmt.Sprintf("Mode(%d)", int(m))
+}
+
+// ParseMode converts "auto", "first-order" or "exact" to a Mode.
+func ParseMode(s string) (Mode, error) {
+	switch s {
+	case "auto":
+		return Auto, nil
+	case "first-order", "firstorder", "first":
+		return FirstOrder, nil
+	case "exact":
+		return Exact, nil
+	}
+	return Auto, fmt.Errorf("unknown mode %q (want auto, first-order or exact)", s)
+}
+
 // Modes.
 const (
 	Auto       Mode = iota // exact where coupling is strong, first-order elsewhere
@@ -41,8 +74,10 @@ type Options struct {
 	// StrongRatio: in Auto mode a coupling is strong when |Δν| < StrongRatio·|J|.
 	// Zero means the default (10, common practice, no source).
 	StrongRatio float64
-	// MaxSpins is the largest cluster simulated exactly; a larger one is
-	// refused with an error that suggests first-order mode. Zero means default.
+	// MaxSpins bounds exact simulation: a cluster whose largest Mz block is
+	// bigger than that of MaxSpins distinct spin-1/2 nuclei, or whose total
+	// diagonalisation work exceeds theirs, is refused with an error that
+	// suggests first-order mode. Zero means the default (14).
 	MaxSpins int
 }
 
@@ -53,6 +88,10 @@ type Line struct {
 	PPM       float64
 	Intensity float64
 	Group     int // the group this line is attributed to
+	// A transition of a strongly coupled cluster is shared among the groups
+	// whose spins take part in it: each share is a separate Line with the
+	// same Hz. A share may be slightly negative when a line is strongly
+	// mixed; the sum over groups at one frequency is the physical intensity.
 }
 
 // Result is the outcome of Simulate.

@@ -1,0 +1,148 @@
+package spin
+
+import (
+	"math"
+	"sort"
+	"testing"
+)
+
+// peak is a line of the whole spectrum (all groups summed).
+type peak struct{ hz, inten float64 }
+
+// spectrum sums the shares of all groups at each frequency and drops lines
+// weaker than minI.
+func spectrum(r *Result, minI float64) []peak {
+	ls := append([]Line(nil), r.Lines...)
+	sort.Slice(ls, func(i, k int) bool { return ls[i].Hz < ls[k].Hz })
+	var ps []peak
+	for _, l := range ls {
+		if n := len(ps); n > 0 && l.Hz-ps[n-1].hz < 1e-6 {
+			ps[n-1].inten += l.Intensity
+			continue
+		}
+		ps = append(ps, peak{l.Hz, l.Intensity})
+	}
+	out := ps[:0]
+	for _, p := range ps {
+		if p.inten > minI {
+			out = append(out, p)
+		}
+	}
+	return out
+}
+
+func total(r *Result) float64 {
+	s := 0.0
+	for _, l := range r.Lines {
+		s += l.Intensity
+	}
+	return s
+}
+
+func mustSim(t testing.TB, sys System, opt Options) *Result {
+	t.Helper()
+	r, err := Simulate(sys, opt)
+	if err != nil {
+		t.Fatalf("Simulate: %v", err)
+	}
+	return r
+}
+
+// comparePeaks checks positions to tolHz and intensities to relI.
+func comparePeaks(t *testing.T, got, want []peak, tolHz, relI float64) {
+	t.Helper()
+	if len(got) != len(want) {
+		t.Fatalf("got %d lines %v, want %d %v", len(got), got, len(want), want)
+	}
+	for i := range want {
+		if math.Abs(got[i].hz-want[i].hz) > tolHz {
+			t.Errorf("line %d at %.5f Hz, want %.5f", i, got[i].hz, want[i].hz)
+		}
+		if math.Abs(got[i].inten-want[i].inten) > relI*math.Abs(want[i].inten) {
+			t.Errorf("line %d intensity %.6f, want %.6f", i, got[i].inten, want[i].inten)
+		}
+	}
+}
+
+// TestAB checks the AB quartet against its closed form (Pople, Schneider &
+// Bernstein 1959, ch. 6; any standard NMR text): lines at ν0 ± D/2 ± J/2 with
+// D = √(Δν² + J²); inner lines ∝ 1 + sin2θ, outer ∝ 1 − sin2θ, sin2θ = J/D.
+func TestAB(t *testing.T) {
+	t.Parallel()
+	for _, tc := range []struct {
+		name           string
+		a, b, j, field float64
+	}{
+		{"close", 5.80, 5.75, 17, 400},
+		{"medium", 7.20, 6.90, 8, 60},
+		{"negative J", 3.10, 3.00, -14, 100},
+		{"far", 7.0, 2.0, 7, 600},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			sys := System{
+				Groups:    []Group{{Name: "a", ShiftPPM: tc.a, Count: 1}, {Name: "b", ShiftPPM: tc.b, Count: 1}},
+				Couplings: []Coupling{{0, 1, tc.j}},
+			}
+			r := mustSim(t, sys, Options{FieldMHz: tc.field, Mode: Exact})
+			nu0 := (tc.a + tc.b) / 2 * tc.field
+			dnu := (tc.a - tc.b) * tc.field
+			j := math.Abs(tc.j)
+			d := math.Hypot(dnu, j)
+			s := j / d
+			want := []peak{
+				{nu0 - (d+j)/2, (1 - s) / 2}, {nu0 - (d-j)/2, (1 + s) / 2},
+				{nu0 + (d-j)/2, (1 + s) / 2}, {nu0 + (d+j)/2, (1 - s) / 2},
+			}
+			comparePeaks(t, spectrum(r, 1e-9), want, 0.01, 0.01)
+			// Sum rule: total intensity = number of spins (physical law of
+			// the normalisation, Tr(F+F−)).
+			if got := total(r); math.Abs(got-2) > 1e-9 {
+				t.Errorf("total intensity %v, want 2", got)
+			}
+		})
+	}
+}
+
+// TestAB2 checks the AB2 (A2B) pattern against the classic analysis rules
+// (Pople, Schneider & Bernstein 1959; H. Günther, NMR Spectroscopy, ch. on
+// AB2 systems; rules from memory): numbering the eight main lines from the A
+// side, νA = ν3, νB = (ν5 + ν7)/2 and J = (ν1 − ν4 + ν6 − ν8)/3. The ninth,
+// combination line is the weakest and is dropped before numbering.
+func TestAB2(t *testing.T) {
+	t.Parallel()
+	const field, j = 100.0, 10.0
+	for _, ratio := range []float64{1.5, 3, 8} {
+		nuA, nuB := 200+ratio*j, 200.0
+		sys := System{
+			Groups:    []Group{{Name: "A", ShiftPPM: nuA / field, Count: 1}, {Name: "B", ShiftPPM: nuB / field, Count: 2}},
+			Couplings: []Coupling{{0, 1, j}},
+		}
+		r := mustSim(t, sys, Options{FieldMHz: field, Mode: Exact})
+		ps := spectrum(r, 1e-9)
+		if len(ps) == 9 {
+			weak := 0
+			for i := range ps {
+				if ps[i].inten < ps[weak].inten {
+					weak = i
+				}
+			}
+			ps = append(ps[:weak], ps[weak+1:]...)
+		}
+		if len(ps) != 8 {
+			t.Fatalf("Δν/J=%v: %d lines %v, want 8 (+1 combination)", ratio, len(ps), ps)
+		}
+		nu := func(k int) float64 { return ps[8-k].hz } // 1 = highest frequency
+		if got := nu(3); math.Abs(got-nuA) > 0.01 {
+			t.Errorf("Δν/J=%v: ν3 = %.4f, want νA = %.4f", ratio, got, nuA)
+		}
+		if got := (nu(5) + nu(7)) / 2; math.Abs(got-nuB) > 0.01 {
+			t.Errorf("Δν/J=%v: (ν5+ν7)/2 = %.4f, want νB = %.4f", ratio, got, nuB)
+		}
+		if got := (nu(1) - nu(4) + nu(6) - nu(8)) / 3; math.Abs(got-j) > 0.01 {
+			t.Errorf("Δν/J=%v: (ν1−ν4+ν6−ν8)/3 = %.4f, want J = %v", ratio, got, j)
+		}
+		if got := total(r); math.Abs(got-3) > 1e-9 {
+			t.Errorf("Δν/J=%v: total %v, want 3 (sum rule)", ratio, got)
+		}
+	}
+}

@@ -1,0 +1,62 @@
+// Package spin simulates the 1H NMR line spectrum of an isotropic spin
+// system: groups of magnetically equivalent nuclei with chemical shifts and
+// scalar couplings.
+//
+// # Conventions
+//
+// Frequencies are in Hz from 0 ppm at the 1H observe frequency: a group at
+// δ ppm sits at ν = δ·FieldMHz Hz, so a higher shift gives a higher
+// frequency. The Hamiltonian, in Hz, is
+//
+//	H = Σ ν_i Iz_i + Σ_{i<j} J_ij I_i·I_j
+//
+// and a transition from an eigenstate |a> of total Mz = M to an eigenstate |b>
+// of Mz = M−1 appears at E_a − E_b with intensity |<b|F−|a>|², F− = Σ I−_i.
+// With this sign choice a single spin appears at +ν, as in the first-order
+// picture. Intensities are scaled so that the lines of a group sum to the
+// group's Count (the sum rule: the whole spectrum sums to the number of 1H
+// nuclei).
+//
+// # Modes
+//
+// FirstOrder splits each 1H group successively by all its partners: k
+// equivalent spin-1/2 partners with coupling J give k+1 lines J apart with
+// binomial intensities (Pascal's triangle).
+//
+// Exact diagonalises the Hamiltonian of each coupled cluster. The product
+// basis is block-diagonal in total Mz; each block is built directly and
+// diagonalised with gonum's mat.EigenSym, so the full 2^n matrix is never
+// formed. A group of n magnetically equivalent spin-1/2 nuclei is replaced by
+// composite particles of total spin F (n=3: F=3/2 once and F=1/2 twice) and
+// the sub-spectra are weighted by the multiplicities, which keeps clusters
+// with several CH3 and CH2 groups small. Groups whose members are given
+// separately but are magnetically equivalent (same shift, same couplings to
+// every other nucleus) are merged first; couplings inside such a set leave no
+// trace in the spectrum.
+//
+// Auto forms clusters from strong couplings (|Δν| < StrongRatio·|J|, default
+// ratio 10, common practice) and simulates each cluster of two or more groups
+// exactly; single groups are treated first-order. Exact forms clusters from
+// all non-zero 1H–1H couplings.
+//
+// Couplings from a cluster to spins outside it (19F and 31P, which are always
+// weakly coupled to 1H, and in Auto mode the 1H groups of other clusters) are
+// treated in the X approximation: each spin-state configuration of the outside
+// partners shifts the cluster's frequencies by Σ J·m, and the sub-spectra are
+// weighted by the binomial populations. To bound the cost, the partners with
+// the largest |J| are treated so (up to 16 configurations) and the remaining
+// ones split the cluster's lines first-order afterwards, line by line, by the
+// coupling of the group the line is attributed to.
+//
+// # Attribution
+//
+// The intensity of a transition is |<b|F−|a>|² = Σ_g Re(<b|F−_g|a>*<b|F−|a>),
+// where F−_g is the lowering operator of group g; each term is reported as a
+// Line of group g. The terms of one group sum to its Count.
+//
+// # Limits
+//
+// Exact simulation refuses a cluster larger than Options.MaxSpins allows
+// (default 14 distinct spin-1/2 nuclei: largest Mz block 3432 states) with an
+// error that suggests first-order mode, rather than exhausting memory.
+package spin

@@ -1,0 +1,411 @@
+package spin
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+)
+
+// Defaults and tolerances.
+const (
+	// DefaultStrongRatio is the Auto-mode threshold on |Δν|/|J| below which a
+	// coupling is strong (common practice, no source).
+	DefaultStrongRatio = 10
+	// DefaultMaxSpins bounds exact clusters (see Options.MaxSpins).
+	DefaultMaxSpins = 14
+	// MaxCount is the largest Count accepted for one group.
+	MaxCount = 64
+
+	mergeTolHz    = 1e-6 // lines closer than this are one line
+	equivTolPPM   = 1e-9 // shift tolerance for magnetic equivalence
+	equivTolHz    = 1e-9 // coupling tolerance for magnetic equivalence
+	maxConfigs    = 16   // X-approximation configurations per cluster
+	minIntensity  = 1e-12
+	maxSpinsLimit = 20 // MaxSpins above this is refused outright
+)
+
+// ErrTooLarge is wrapped by the error Simulate returns when a cluster is too
+// large to simulate exactly.
+var ErrTooLarge = errors.New("cluster too large for exact simulation")
+
+// Simulate computes the 1H line spectrum of sys. It returns an error for an
+// invalid system or options, and one wrapping ErrTooLarge when a cluster
+// exceeds the exact-simulation bound. Lines are sorted by group, then by
+// frequency.
+func Simulate(sys System, opt Options) (*Result, error) {
+	if err := validate(sys, opt); err != nil {
+		return nil, err
+	}
+	if opt.StrongRatio == 0 {
+		opt.StrongRatio = DefaultStrongRatio
+	}
+	if opt.MaxSpins == 0 {
+		opt.MaxSpins = DefaultMaxSpins
+	}
+	es := reduce(sys, opt.FieldMHz)
+	clusters := es.clusters(opt)
+	res := &Result{ModeUsed: make([]Mode, len(sys.Groups))}
+	for g := range res.ModeUsed {
+		res.ModeUsed[g] = FirstOrder
+	}
+	var lines []rawLine
+	for _, c := range clusters {
+		cl, err := es.simulateCluster(c, opt)
+		if err != nil {
+			return nil, err
+		}
+		lines = append(lines, cl...)
+		if opt.Mode == Exact || len(c) > 1 {
+			for _, eg := range c {
+				for _, m := range es.g[eg].members {
+					res.ModeUsed[m] = Exact
+				}
+			}
+		}
+	}
+	res.Lines = es.distribute(sys, lines, opt.FieldMHz)
+	return res, nil
+}
+
+// validate checks the system and options.
+func validate(sys System, opt Options) error {
+	if !(opt.FieldMHz > 0) || math.IsInf(opt.FieldMHz, 0) {
+		return fmt.Errorf("spin: field must be a positive number of MHz, got %v", opt.FieldMHz)
+	}
+	if opt.Mode != Auto && opt.Mode != FirstOrder && opt.Mode != Exact {
+		return fmt.Errorf("spin: unknown mode %d", int(opt.Mode))
+	}
+	if opt.StrongRatio < 0 || math.IsNaN(opt.StrongRatio) || math.IsInf(opt.StrongRatio, 0) {
+		return fmt.Errorf("spin: strong-coupling ratio must be a finite number ≥ 0, got %v", opt.StrongRatio)
+	}
+	if opt.MaxSpins < 0 || opt.MaxSpins > maxSpinsLimit {
+		return fmt.Errorf("spin: MaxSpins must be between 0 and %d, got %d", maxSpinsLimit, opt.MaxSpins)
+	}
+	if len(sys.Groups) == 0 {
+		return errors.New("spin: the system has no groups")
+	}
+	for i, g := range sys.Groups {
+		if err := validGroup(g); err != nil {
+			return fmt.Errorf("spin: group %d (%q): %v", i, g.Name, err)
+		}
+	}
+	seen := map[[2]int]int{}
+	for k, c := range sys.Couplings {
+		if err := validCoupling(c, len(sys.Groups)); err != nil {
+			return fmt.Errorf("spin: coupling %d: %v", k, err)
+		}
+		key := [2]int{min(c.A, c.B), max(c.A, c.B)}
+		if prev, dup := seen[key]; dup {
+			return fmt.Errorf("spin: coupling %d: groups %d and %d are already coupled by coupling %d", k, c.A, c.B, prev)
+		}
+		seen[key] = k
+	}
+	return nil
+}
+
+func validGroup(g Group) error {
+	switch {
+	case g.Count < 1:
+		return fmt.Errorf("count must be at least 1, got %d", g.Count)
+	case g.Count > MaxCount:
+		return fmt.Errorf("count %d is above the limit of %d", g.Count, MaxCount)
+	case math.IsNaN(g.ShiftPPM) || math.IsInf(g.ShiftPPM, 0):
+		return fmt.Errorf("shift must be a finite number, got %v", g.ShiftPPM)
+	}
+	switch g.Nucleus {
+	case "", "1H", "19F", "31P":
+		return nil
+	}
+	return fmt.Errorf("unknown nucleus %q (want 1H, 19F or 31P)", g.Nucleus)
+}
+
+func validCoupling(c Coupling, n int) error {
+	switch {
+	case c.A < 0 || c.A >= n || c.B < 0 || c.B >= n:
+		return fmt.Errorf("group index out of range (%d, %d; %d groups)", c.A, c.B, n)
+	case c.A == c.B:
+		return fmt.Errorf("couples group %d to itself (a coupling inside an equivalent group leaves no trace)", c.A)
+	case math.IsNaN(c.JHz) || math.IsInf(c.JHz, 0):
+		return fmt.Errorf("J must be a finite number, got %v", c.JHz)
+	}
+	return nil
+}
+
+// egroup is a group after merging magnetically equivalent groups.
+type egroup struct {
+	nu      float64 // Hz
+	n       int     // number of spin-1/2 nuclei
+	proton  bool
+	members []int  // indices into System.Groups
+	name    string // of the first member, for messages
+}
+
+// esys is the reduced system: merged groups and a dense coupling matrix.
+type esys struct {
+	g []egroup
+	j [][]float64
+}
+
+// rawLine is a line of a merged group, before distribution to the members.
+type rawLine struct {
+	hz, inten float64
+	eg        int
+}
+
+// reduce merges groups that are magnetically equivalent: same nucleus, same
+// shift and the same coupling to every other group. This is exact: the
+// couplings inside such a set commute with the rest of the Hamiltonian and
+// with F−.
+func reduce(sys System, field float64) *esys {
+	n := len(sys.Groups)
+	j := make([][]float64, n)
+	for i := range j {
+		j[i] = make([]float64, n)
+	}
+	for _, c := range sys.Couplings {
+		j[c.A][c.B], j[c.B][c.A] = c.JHz, c.JHz
+	}
+	rep := make([]int, n)
+	for i := range rep {
+		rep[i] = -1
+	}
+	es := &esys{}
+	for a := 0; a < n; a++ {
+		if rep[a] >= 0 {
+			continue
+		}
+		rep[a] = len(es.g)
+		ga := sys.Groups[a]
+		eg := egroup{nu: ga.ShiftPPM * field, n: ga.Count, proton: ga.IsProton(), members: []int{a}, name: ga.Name}
+		for b := a + 1; b < n; b++ {
+			if rep[b] < 0 && equivalent(sys.Groups, j, a, b) {
+				rep[b] = rep[a]
+				eg.n += sys.Groups[b].Count
+				eg.members = append(eg.members, b)
+			}
+		}
+		es.g = append(es.g, eg)
+	}
+	m := len(es.g)
+	es.j = make([][]float64, m)
+	for i := range es.j {
+		es.j[i] = make([]float64, m)
+	}
+	for a := 0; a < n; a++ {
+		for b := 0; b < n; b++ {
+			if rep[a] != rep[b] {
+				es.j[rep[a]][rep[b]] = j[a][b]
+			}
+		}
+	}
+	return es
+}
+
+func equivalent(gs []Group, j [][]float64, a, b int) bool {
+	if gs[a].IsProton() != gs[b].IsProton() || (!gs[a].IsProton() && gs[a].Nucleus != gs[b].Nucleus) {
+		return false
+	}
+	if math.Abs(gs[a].ShiftPPM-gs[b].ShiftPPM) > equivTolPPM {
+		return false
+	}
+	for c := range gs {
+		if c != a && c != b && math.Abs(j[a][c]-j[b][c]) > equivTolHz {
+			return false
+		}
+	}
+	return true
+}
+
+// clusters returns the 1H merged groups partitioned into clusters: by strong
+// couplings in Auto mode, by non-zero couplings in Exact mode, one group per
+// cluster in FirstOrder mode.
+func (es *esys) clusters(opt Options) [][]int {
+	n := len(es.g)
+	parent := make([]int, n)
+	for i := range parent {
+		parent[i] = i
+	}
+	var find func(int) int
+	find = func(x int) int {
+		for parent[x] != x {
+			parent[x] = parent[parent[x]]
+			x = parent[x]
+		}
+		return x
+	}
+	for a := 0; a < n; a++ {
+		for b := a + 1; b < n; b++ {
+			if es.joined(a, b, opt) {
+				parent[find(a)] = find(b)
+			}
+		}
+	}
+	idx := map[int]int{}
+	var out [][]int
+	for a := 0; a < n; a++ {
+		if !es.g[a].proton {
+			continue
+		}
+		r := find(a)
+		k, ok := idx[r]
+		if !ok {
+			k = len(out)
+			idx[r] = k
+			out = append(out, nil)
+		}
+		out[k] = append(out[k], a)
+	}
+	return out
+}
+
+// joined reports whether merged groups a and b belong to one cluster.
+func (es *esys) joined(a, b int, opt Options) bool {
+	j := es.j[a][b]
+	if j == 0 || !es.g[a].proton || !es.g[b].proton {
+		return false
+	}
+	switch opt.Mode {
+	case Exact:
+		return true
+	case Auto:
+		return math.Abs(es.g[a].nu-es.g[b].nu) < opt.StrongRatio*math.Abs(j)
+	}
+	return false
+}
+
+// partners returns the merged groups outside cluster c coupled to it,
+// largest |J| first.
+func (es *esys) partners(c []int) []int {
+	in := map[int]bool{}
+	for _, g := range c {
+		in[g] = true
+	}
+	var ps []int
+	maxJ := map[int]float64{}
+	for p := range es.g {
+		if in[p] {
+			continue
+		}
+		for _, g := range c {
+			if j := math.Abs(es.j[g][p]); j > 0 {
+				if _, ok := maxJ[p]; !ok {
+					ps = append(ps, p)
+				}
+				maxJ[p] = math.Max(maxJ[p], j)
+			}
+		}
+	}
+	sort.SliceStable(ps, func(i, k int) bool { return maxJ[ps[i]] > maxJ[ps[k]] })
+	return ps
+}
+
+// simulateCluster returns the lines of the groups of cluster c, including the
+// effect of all outside partners.
+func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, error) {
+	ps := es.partners(c)
+	if len(c) == 1 && opt.Mode != Exact {
+		g := c[0]
+		lines := []rawLine{{hz: es.g[g].nu, inten: float64(es.g[g].n), eg: g}}
+		return es.splitBy(lines, ps), nil
+	}
+	cost, err := es.exactCost(c, opt.MaxSpins)
+	if err != nil {
+		return nil, err
+	}
+	// Take partners into the X-approximation while the number of
+	// configurations and the total work stay bounded.
+	budget := workBudget(opt.MaxSpins)
+	nconf := 1.0
+	k := 0
+	for ; k < len(ps); k++ {
+		next := nconf * float64(es.g[ps[k]].n+1)
+		if next > maxConfigs || next*cost > budget {
+			break
+		}
+		nconf = next
+	}
+	lines, err := es.exactLines(c, ps[:k])
+	if err != nil {
+		return nil, err
+	}
+	return es.splitBy(mergeRaw(lines), ps[k:]), nil
+}
+
+// splitBy splits every line first-order by the partners ps, using the
+// coupling between the line's group and each partner.
+func (es *esys) splitBy(lines []rawLine, ps []int) []rawLine {
+	for _, p := range ps {
+		n := es.g[p].n
+		w := binomialWeights(n)
+		out := make([]rawLine, 0, len(lines)*(n+1))
+		for _, l := range lines {
+			j := es.j[l.eg][p]
+			if j == 0 {
+				out = append(out, l)
+				continue
+			}
+			for k, wk := range w {
+				m := float64(n)/2 - float64(k)
+				out = append(out, rawLine{hz: l.hz + j*m, inten: l.inten * wk, eg: l.eg})
+			}
+		}
+		lines = mergeRaw(out)
+	}
+	return lines
+}
+
+// binomialWeights returns C(n,k)/2^n for k = 0..n (Pascal's triangle).
+func binomialWeights(n int) []float64 {
+	w := make([]float64, n+1)
+	w[0] = math.Pow(0.5, float64(n))
+	for k := 1; k <= n; k++ {
+		w[k] = w[k-1] * float64(n-k+1) / float64(k)
+	}
+	return w
+}
+
+// mergeRaw sorts lines by group and frequency and merges coincident ones.
+func mergeRaw(lines []rawLine) []rawLine {
+	sort.Slice(lines, func(i, k int) bool {
+		if lines[i].eg != lines[k].eg {
+			return lines[i].eg < lines[k].eg
+		}
+		return lines[i].hz < lines[k].hz
+	})
+	out := lines[:0]
+	for _, l := range lines {
+		if n := len(out); n > 0 && out[n-1].eg == l.eg && l.hz-out[n-1].hz <= mergeTolHz {
+			out[n-1].inten += l.inten
+			continue
+		}
+		out = append(out, l)
+	}
+	kept := out[:0]
+	for _, l := range out {
+		if math.Abs(l.inten) > minIntensity {
+			kept = append(kept, l)
+		}
+	}
+	return kept
+}
+
+// distribute shares each merged group's lines among its member groups in
+// proportion to their counts and returns the sorted output lines.
+func (es *esys) distribute(sys System, lines []rawLine, field float64) []Line {
+	var out []Line
+	for _, l := range lines {
+		eg := es.g[l.eg]
+		for _, m := range eg.members {
+			f := float64(sys.Groups[m].Count) / float64(eg.n)
+			out = append(out, Line{Hz: l.hz, PPM: l.hz / field, Intensity: l.inten * f, Group: m})
+		}
+	}
+	sort.SliceStable(out, func(i, k int) bool {
+		if out[i].Group != out[k].Group {
+			return out[i].Group < out[k].Group
+		}
+		return out[i].Hz < out[k].Hz
+	})
+	return out
+}
