@@ -13,6 +13,10 @@ type Spectrum struct {
 	// PeakTable holds the peaks of a file that carries a peak list instead
 	// of (or besides) a trace. PPM and Y are empty for a peak-list-only file.
 	PeakTable []Peak
+	// Warnings lists tolerated inconsistencies found while reading, each as
+	// "file:line: message" (e.g. a line whose X disagrees with FIRSTX and
+	// DELTAX). Nil when the file was clean.
+	Warnings []string
 }
 
 // Peak is one picked maximum.
