@@ -146,3 +146,81 @@ func TestAB2(t *testing.T) {
 		}
 	}
 }
+
+// abxParams returns the closed-form quantities of the ABX analysis
+// (Pople, Schneider & Bernstein 1959, ch. 6; any standard NMR text; formulas
+// from memory): Δ± = (νA − νB) ± (JAX − JBX)/2, D± = √(Δ±² + JAB²),
+// sin 2θ± = JAB/D±, cos 2θ± = Δ±/D±.
+func abxParams(nuA, nuB, jab, jax, jbx float64) (dp, dm, thp, thm float64) {
+	deltaP := nuA - nuB + (jax-jbx)/2
+	deltaM := nuA - nuB - (jax-jbx)/2
+	dp, dm = math.Hypot(deltaP, jab), math.Hypot(deltaM, jab)
+	thp, thm = math.Atan2(jab, deltaP)/2, math.Atan2(jab, deltaM)/2
+	return
+}
+
+// TestABXPart checks the AB part of an ABX system against the closed form:
+// two AB quartets, one per X spin state, centred at ν̄AB ± (JAX + JBX)/4 with
+// effective separations D±; each carries half the AB intensity. X is 19F, so
+// the X approximation the closed form rests on holds exactly.
+func TestABXPart(t *testing.T) {
+	t.Parallel()
+	const field = 300.0
+	nuA, nuB := 2.10*field, 2.00*field
+	jab, jax, jbx := 12.0, 8.0, 3.0
+	sys := System{
+		Groups: []Group{
+			{Name: "A", ShiftPPM: nuA / field, Count: 1}, {Name: "B", ShiftPPM: nuB / field, Count: 1},
+			{Name: "X", ShiftPPM: -120, Count: 1, Nucleus: "19F"},
+		},
+		Couplings: []Coupling{{0, 1, jab}, {0, 2, jax}, {1, 2, jbx}},
+	}
+	dp, dm, _, _ := abxParams(nuA, nuB, jab, jax, jbx)
+	var want []peak
+	for _, q := range []struct{ sign, d float64 }{{+1, dp}, {-1, dm}} {
+		c := (nuA+nuB)/2 + q.sign*(jax+jbx)/4
+		s := jab / q.d
+		want = append(want,
+			peak{c - (q.d+jab)/2, (1 - s) / 4}, peak{c - (q.d-jab)/2, (1 + s) / 4},
+			peak{c + (q.d-jab)/2, (1 + s) / 4}, peak{c + (q.d+jab)/2, (1 - s) / 4})
+	}
+	sort.Slice(want, func(i, k int) bool { return want[i].hz < want[k].hz })
+	for _, mode := range []Mode{Exact, Auto} {
+		r := mustSim(t, sys, Options{FieldMHz: field, Mode: mode})
+		comparePeaks(t, spectrum(r, 1e-9), want, 0.01, 0.01)
+	}
+}
+
+// TestABXXPart checks the X part of an ABX system (X a distant 1H, simulated
+// in the full three-spin basis) against the closed form: six lines
+// νX ± (JAX + JBX)/2 (¼ each), νX ± (D+ − D−)/2 (cos²(θ+ − θ−)/4 each) and
+// the combination lines νX ± (D+ + D−)/2 (sin²(θ+ − θ−)/4 each).
+func TestABXXPart(t *testing.T) {
+	t.Parallel()
+	const field = 300.0
+	nuA, nuB, nuX := 2.10*field, 2.04*field, 2000.0*field // X far away: X limit
+	jab, jax, jbx := 15.0, 9.0, 2.0
+	sys := System{
+		Groups: []Group{
+			{Name: "A", ShiftPPM: nuA / field, Count: 1}, {Name: "B", ShiftPPM: nuB / field, Count: 1},
+			{Name: "X", ShiftPPM: nuX / field, Count: 1},
+		},
+		Couplings: []Coupling{{0, 1, jab}, {0, 2, jax}, {1, 2, jbx}},
+	}
+	r := mustSim(t, sys, Options{FieldMHz: field, Mode: Exact})
+	var got []peak
+	for _, p := range spectrum(r, 1e-9) {
+		if p.hz > nuX-1000 {
+			got = append(got, p)
+		}
+	}
+	dp, dm, thp, thm := abxParams(nuA, nuB, jab, jax, jbx)
+	c2 := math.Pow(math.Cos(thp-thm), 2) / 4
+	s2 := math.Pow(math.Sin(thp-thm), 2) / 4
+	want := []peak{
+		{nuX - (dp+dm)/2, s2}, {nuX - (jax+jbx)/2, 0.25}, {nuX - (dp-dm)/2, c2},
+		{nuX + (dp-dm)/2, c2}, {nuX + (jax+jbx)/2, 0.25}, {nuX + (dp+dm)/2, s2},
+	}
+	sort.Slice(want, func(i, k int) bool { return want[i].hz < want[k].hz })
+	comparePeaks(t, got, want, 0.01, 0.01)
+}
