@@ -1,0 +1,256 @@
+package graph
+
+import (
+	"slices"
+	"strconv"
+)
+
+// Proton is one hydrogen: its heavy atom and its index among that atom's
+// hydrogens (0 … HCount-1).
+type Proton struct {
+	Atom, Index int
+}
+
+// Environment is a set of chemically equivalent protons.
+type Environment struct {
+	Label                  string   // "A", "B", … "Z", "AA", … in order of the first proton
+	Atoms                  []int    // heavy atoms carrying these H, ascending
+	Protons                []Proton // ordered by (Atom, Index)
+	NH                     int      // number of protons
+	Kind                   string   // CH3, CH2, CH, =CH2, =CH, ArH, CHO, ≡CH, OH, NH, NH2, COOH, SH, …
+	Exchangeable           bool     // H on O, N or S
+	MagneticallyEquivalent bool     // every member couples alike to every other spin
+}
+
+// Environments groups the hydrogens of the molecule into chemically distinct
+// sets, ordered by their first proton (atom, index) and labelled A, B, ….
+//
+// Protons start in one set per symmetry class of their heavy atom, refined by
+// double-bond geometry (so that E/Z-distinct vinyl groups part), and are then
+// split where NMR tells them apart although topology does not:
+//
+//   - the two H of a =CH2 group when they are cis to different groups;
+//   - the two H of a CH2 group that are diastereotopic: the carbon is sp3
+//     and either (a) it has two heavy neighbours of different symmetry
+//     class and a stereocentre lies within two bonds of it (an atom with a
+//     written @ or @@, or an sp3 atom with four substituents of different
+//     class), or (b) it lies in a ring of at most 8 atoms whose two faces
+//     differ: another
+//     sp3 ring member carries two different groups outside the ring
+//     (methylcyclohexane, cyclohexanol, decalin). Ethyl groups of achiral
+//     molecules, cyclohexane and cyclohexanone are therefore not split. The
+//     rule is deliberately conservative: remote stereocentres, meso
+//     relations and diastereotopic methyl groups (isopropyl next to a
+//     stereocentre) are not considered.
+//
+// The member of a split pair with proton Index 0 goes to the first set. See
+// magneticallyEquivalent for the MagneticallyEquivalent flag.
+func (m *Mol) Environments() []Environment {
+	cls := m.SymmetryClasses()
+	bonds := m.alkBonds(cls)
+	ecls := m.envClasses(cls, bonds)
+	type group struct {
+		key     [2]int
+		protons []Proton
+	}
+	var groups []*group
+	index := map[[2]int]*group{}
+	for a := range m.Atoms {
+		for i := 0; i < m.Atoms[a].HCount(); i++ {
+			p := Proton{a, i}
+			key := [2]int{ecls[a], m.envSubKey(p, ecls, cls, bonds)}
+			g := index[key]
+			if g == nil {
+				g = &group{key: key}
+				index[key] = g
+				groups = append(groups, g)
+			}
+			g.protons = append(g.protons, p)
+		}
+	}
+	envs := make([]Environment, len(groups))
+	for k, g := range groups {
+		envs[k] = m.envBuild(k, g.protons)
+	}
+	m.envMagnetic(envs, bonds)
+	return envs
+}
+
+// envLabel returns the spreadsheet-style label of the k-th set: A … Z, AA, AB ….
+func envLabel(k int) string {
+	s := ""
+	for k++; k > 0; k = (k - 1) / 26 {
+		s = string(rune('A'+(k-1)%26)) + s
+	}
+	return s
+}
+
+func (m *Mol) envBuild(k int, ps []Proton) Environment {
+	var atoms []int
+	for _, p := range ps {
+		if len(atoms) == 0 || atoms[len(atoms)-1] != p.Atom {
+			atoms = append(atoms, p.Atom)
+		}
+	}
+	kind, exch := m.protonKind(ps[0].Atom)
+	return Environment{
+		Label: envLabel(k), Atoms: atoms, Protons: ps, NH: len(ps),
+		Kind: kind, Exchangeable: exch,
+	}
+}
+
+// envClasses refines the symmetry classes by double-bond geometry: each
+// carbon of a C=C gets, as an extra invariant, the sorted pairs (class of a
+// position on it, class of the position cis to it), hydrogens counting as -1.
+func (m *Mol) envClasses(cls []int, bonds []alkBond) []int {
+	if len(bonds) == 0 {
+		return cls
+	}
+	cur := cls
+	for {
+		init := make([][]int, len(m.Atoms))
+		for a := range init {
+			init[a] = []int{cls[a]}
+		}
+		for _, ab := range bonds {
+			init[ab.a] = append(init[ab.a], alkDescriptor(ab.sa, ab.sb, cur)...)
+			init[ab.b] = append(init[ab.b], alkDescriptor(ab.sb, ab.sa, cur)...)
+		}
+		next := m.symRefine(init)
+		if slices.Max(next) == slices.Max(cur) {
+			return next
+		}
+		cur = next
+	}
+}
+
+func alkCode(s alkSlot, cls []int) int {
+	if s.atom < 0 {
+		return -1
+	}
+	return cls[s.atom]
+}
+
+func alkDescriptor(own, other [2]alkSlot, cls []int) []int {
+	p := [2][2]int{}
+	for i := range own {
+		p[i] = [2]int{alkCode(own[i], cls), alkCode(other[i], cls)}
+	}
+	if slices.Compare(p[0][:], p[1][:]) > 0 {
+		p[0], p[1] = p[1], p[0]
+	}
+	return []int{p[0][0], p[0][1], p[1][0], p[1][1]}
+}
+
+// envSubKey separates protons of one atom class that NMR distinguishes:
+// =CH2 hydrogens by the class of the group cis to them, diastereotopic CH2
+// hydrogens by their index.
+func (m *Mol) envSubKey(p Proton, ecls, cls []int, bonds []alkBond) int {
+	at := &m.Atoms[p.Atom]
+	if at.HCount() != 2 {
+		return 0
+	}
+	if ab, i, onA, ok := alkFind(bonds, p); ok {
+		other := ab.sb
+		if !onA {
+			other = ab.sa
+		}
+		return 2 + alkCode(other[i], ecls) // ≥ 1, distinct from 0
+	}
+	if m.diastereotopic(p.Atom, cls) {
+		return -1 - p.Index
+	}
+	return 0
+}
+
+// protonKind names the kind of hydrogen carried by atom a and says whether
+// it exchanges (H on O, N, S).
+func (m *Mol) protonKind(a int) (string, bool) {
+	at := &m.Atoms[a]
+	h := at.HCount()
+	switch at.Element {
+	case "C":
+		return m.carbonKind(a, h), false
+	case "O":
+		if h >= 2 {
+			return "H2O", true
+		}
+		if m.envAcidOH(a) {
+			return "COOH", true
+		}
+		return "OH", true
+	case "N":
+		return envCount("NH", h) + envCharge(at.Charge), true
+	case "S":
+		return envCount("SH", h), true
+	}
+	return envCount(at.Element+"H", h), false
+}
+
+func envCount(base string, h int) string {
+	if h <= 1 {
+		return base
+	}
+	return base + strconv.Itoa(h)
+}
+
+func envCharge(c int) string {
+	switch {
+	case c == 1:
+		return "+"
+	case c == -1:
+		return "-"
+	case c > 1:
+		return strconv.Itoa(c) + "+"
+	case c < -1:
+		return strconv.Itoa(-c) + "-"
+	}
+	return ""
+}
+
+func (m *Mol) carbonKind(a, h int) string {
+	if m.Atoms[a].Aromatic {
+		return "ArH"
+	}
+	var dbl, tri bool
+	var dblO bool
+	for _, bi := range m.adj[a] {
+		b := &m.Bonds[bi]
+		switch b.Order {
+		case 2:
+			dbl = true
+			if m.Atoms[b.Other(a)].Element == "O" {
+				dblO = true
+			}
+		case 3:
+			tri = true
+		}
+	}
+	switch {
+	case dblO:
+		return "CHO"
+	case tri:
+		return "≡CH"
+	case dbl:
+		return envCount("=CH", h)
+	}
+	return envCount("CH", h)
+}
+
+// envAcidOH reports whether oxygen o is the OH of a carboxylic acid: bonded
+// to a carbon that also bears a doubly bonded oxygen.
+func (m *Mol) envAcidOH(o int) bool {
+	for _, c := range m.Neighbors(o) {
+		if m.Atoms[c].Element != "C" {
+			continue
+		}
+		for _, bi := range m.adj[c] {
+			b := &m.Bonds[bi]
+			x := b.Other(c)
+			if x != o && b.Order == 2 && m.Atoms[x].Element == "O" {
+				return true
+			}
+		}
+	}
+	return false
+}

@@ -1,0 +1,220 @@
+package graph
+
+// This file holds the two finer judgements made on proton sets: whether the
+// hydrogens of a CH2 are diastereotopic, and whether the members of a set
+// are magnetically equivalent.
+
+// diastereotopic reports whether the two hydrogens of atom c are
+// diastereotopic by the conservative rule documented on Environments.
+func (m *Mol) diastereotopic(c int, cls []int) bool {
+	at := &m.Atoms[c]
+	if at.Element != "C" || at.HCount() != 2 || m.Degree(c) != 2 || !m.envSingleBonded(c) {
+		return false
+	}
+	nb := m.Neighbors(c)
+	if cls[nb[0]] != cls[nb[1]] {
+		for x, d := range m.symDistances(c) {
+			if d >= 1 && d <= 2 && m.stereocentre(x, cls) {
+				return true
+			}
+		}
+	}
+	ring := m.envSmallestRing(c, nb[0], nb[1])
+	if ring == nil || len(ring) > 8 {
+		return false
+	}
+	in := make(map[int]bool, len(ring))
+	for _, r := range ring {
+		in[r] = true
+	}
+	for _, r := range ring {
+		if r != c && m.faceDifferentiating(r, in, cls) {
+			return true
+		}
+	}
+	return false
+}
+
+// envSingleBonded reports whether atom a is non-aromatic and has only
+// single bonds.
+func (m *Mol) envSingleBonded(a int) bool {
+	if m.Atoms[a].Aromatic {
+		return false
+	}
+	for _, bi := range m.adj[a] {
+		if b := &m.Bonds[bi]; b.Aromatic || b.Order != 1 {
+			return false
+		}
+	}
+	return true
+}
+
+// stereocentre reports whether atom x is a tetrahedral stereocentre: it has
+// a written @ or @@ mark, or it is a saturated atom with four positions
+// whose occupants (hydrogens counting as one kind) are of four different
+// symmetry classes.
+func (m *Mol) stereocentre(x int, cls []int) bool {
+	at := &m.Atoms[x]
+	if at.Chiral != ChiralNone {
+		return true
+	}
+	h := at.HCount()
+	if h > 1 || m.Degree(x)+h != 4 || !m.envSingleBonded(x) {
+		return false
+	}
+	seen := map[int]bool{}
+	if h == 1 {
+		seen[-1] = true
+	}
+	for _, o := range m.Neighbors(x) {
+		if seen[cls[o]] {
+			return false
+		}
+		seen[cls[o]] = true
+	}
+	return true
+}
+
+// faceDifferentiating reports whether ring atom r (of the ring whose atoms
+// are in) is a saturated atom, not a neutral nitrogen (which inverts), whose
+// two positions outside the ring hold groups of different class.
+func (m *Mol) faceDifferentiating(r int, in map[int]bool, cls []int) bool {
+	at := &m.Atoms[r]
+	h := at.HCount()
+	if m.Degree(r)+h != 4 || !m.envSingleBonded(r) || (at.Element == "N" && at.Charge == 0) {
+		return false
+	}
+	var out []int
+	for i := 0; i < h; i++ {
+		out = append(out, -1)
+	}
+	for _, o := range m.Neighbors(r) {
+		if !in[o] {
+			out = append(out, cls[o])
+		}
+	}
+	return len(out) == 2 && out[0] != out[1]
+}
+
+// envSmallestRing returns the atoms of a smallest ring through c and its
+// neighbours x and y (the shortest x…y path avoiding c, plus c), or nil.
+func (m *Mol) envSmallestRing(c, x, y int) []int {
+	prev := map[int]int{x: -1}
+	queue := []int{x}
+	for len(queue) > 0 {
+		v := queue[0]
+		queue = queue[1:]
+		if v == y {
+			ring := []int{c}
+			for u := y; u >= 0; u = prev[u] {
+				ring = append(ring, u)
+			}
+			return ring
+		}
+		for _, o := range m.Neighbors(v) {
+			if o == c {
+				continue
+			}
+			if _, ok := prev[o]; !ok {
+				prev[o] = v
+				queue = append(queue, o)
+			}
+		}
+	}
+	return nil
+}
+
+// envSp2 reports whether atom a is aromatic or doubly bonded.
+func (m *Mol) envSp2(a int) bool {
+	if m.Atoms[a].Aromatic {
+		return true
+	}
+	for _, bi := range m.adj[a] {
+		if m.Bonds[bi].Order == 2 {
+			return true
+		}
+	}
+	return false
+}
+
+// envMagnetic sets MagneticallyEquivalent on each set. Members of a set are
+// magnetically equivalent when each has the same coupling to every spin
+// outside the set. Couplings are judged from topology: a coupling is
+// identified by its number of bonds and, across a C=C, by cis/trans. Counted
+// are 2J and 3J to protons, 4J between two hydrogens on sp2 atoms (meta and
+// W couplings), and H–F and H–P couplings through at most 4 bonds.
+// Exchangeable protons (OH, NH, SH) take no part as partners, and small
+// allylic and benzylic 4J are ignored, so the aromatic H of p-xylene count
+// as equivalent while the AA'BB' sets of 4-chloroanisole do not.
+func (m *Mol) envMagnetic(envs []Environment, bonds []alkBond) {
+	dist := make(map[int][]int)
+	d := func(a, b int) int {
+		if dist[a] == nil {
+			dist[a] = m.symDistances(a)
+		}
+		return dist[a][b]
+	}
+	var partners []Proton
+	var hetero []int
+	for _, e := range envs {
+		if !e.Exchangeable {
+			partners = append(partners, e.Protons...)
+		}
+	}
+	for a, at := range m.Atoms {
+		if at.Element == "F" || at.Element == "P" {
+			hetero = append(hetero, a)
+		}
+	}
+	key := func(p, t Proton) int {
+		n := d(p.Atom, t.Atom) + 2
+		switch {
+		case n < 2 || n > 4:
+			return 0
+		case n == 4 && !(m.envSp2(p.Atom) && m.envSp2(t.Atom)):
+			return 0
+		}
+		return n*10 + int(m.protonRelation(bonds, p, t))
+	}
+	for k := range envs {
+		e := &envs[k]
+		e.MagneticallyEquivalent = m.envMagEq(e, partners, hetero, key, d)
+	}
+}
+
+func (m *Mol) envMagEq(e *Environment, partners []Proton, hetero []int,
+	key func(p, t Proton) int, d func(a, b int) int) bool {
+	if len(e.Atoms) < 2 {
+		return true
+	}
+	member := make(map[Proton]bool, len(e.Protons))
+	for _, p := range e.Protons {
+		member[p] = true
+	}
+	s0 := e.Protons[0]
+	for _, s := range e.Protons[1:] {
+		if s.Atom == s0.Atom {
+			continue
+		}
+		for _, t := range partners {
+			if !member[t] && key(s0, t) != key(s, t) {
+				return false
+			}
+		}
+		for _, f := range hetero {
+			if hetKey(d(s0.Atom, f)) != hetKey(d(s.Atom, f)) {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// hetKey identifies an H–F or H–P coupling by its number of bonds, given
+// the heavy-atom distance, or 0 when it is too remote to count.
+func hetKey(dist int) int {
+	if dist < 0 || dist+1 > 4 {
+		return 0
+	}
+	return dist + 1
+}
