@@ -25,6 +25,9 @@ type Peak struct {
 	Intensity float64 `json:"intensity"`
 	SNR       float64 `json:"snr"`
 	WidthHz   float64 `json:"width_hz,omitempty"`
+	// Artifact is set when the peak is not a signal of the sample:
+	// Artifact13C or ArtifactSideband. Such peaks belong to no multiplet.
+	Artifact string `json:"artifact,omitempty"`
 }
 
 // Multiplet is a group of peaks that belong to one signal, with its region,
@@ -37,8 +40,11 @@ type Multiplet struct {
 	Multiplicity string    `json:"multiplicity"`
 	JHz          []float64 `json:"j_hz"`
 	Peaks        int       `json:"peaks"`
-	PeakIndex    []int     `json:"-"` // indices into the peak list
-	RawArea      float64   `json:"-"` // area before relative scaling
+	// Label marks a multiplet that is not the compound's: LabelSolvent (the
+	// residual solvent signal) or LabelTMS. Empty otherwise.
+	Label     string  `json:"label,omitempty"`
+	PeakIndex []int   `json:"-"` // indices into the peak list
+	RawArea   float64 `json:"-"` // area before relative scaling
 }
 
 // PeakList is the outcome of processing a spectrum. Its JSON form is fixed.
@@ -50,6 +56,13 @@ type PeakList struct {
 	Noise      float64     `json:"noise"`
 	// ReferencePPM is the shift the axis was moved by when referencing (0 if none).
 	ReferencePPM float64 `json:"reference_shift_ppm"`
+	// Solvent is the canonical solvent name used for referencing ("" if unknown).
+	Solvent string `json:"solvent,omitempty"`
+	// Reference is how the axis was referenced: RefTMS, RefSolvent or RefNone.
+	Reference string `json:"reference,omitempty"`
+	// Warnings says what processing could not do as asked (reference signal
+	// not found, field assumed, ...).
+	Warnings []string `json:"warnings,omitempty"`
 	// Trace is the processed (referenced, baseline-corrected) trace, for plots;
 	// nil when the input was a peak list.
 	Trace *Spectrum `json:"-"`

@@ -1,0 +1,265 @@
+package spectrum
+
+import (
+	"math"
+	"sort"
+	"strings"
+)
+
+// Multiplets: grouping and first-order analysis.
+//
+// Grouping. Peaks are taken in ppm order; two neighbours belong to the same
+// multiplet when their distance is at most JMaxHz (default 20 Hz, above
+// nearly all 2J and 3J H–H couplings; common practice, no source), or when
+// the trace between them never falls below a quarter of the smaller peak (the
+// two lines overlap so much that no integral boundary can be drawn between
+// them), with 3σ as a floor. Peaks flagged as artifacts (13C satellites,
+// spinning sidebands) are left out.
+//
+// First-order analysis follows Hoye, Hanson & Vyvyan 1994 (J. Org. Chem. 59,
+// 4096, "A practical guide to first-order multiplet analysis in 1H NMR
+// spectroscopy"): the pattern must be symmetric about its centre in
+// positions and (within roofing) intensities; line intensities are
+// expressed in units of an outer line and must be near whole numbers
+// summing to a power of two; the component lines are then peeled one
+// coupling at a time, the smallest coupling being the distance between the
+// first two components. Equal couplings are merged into t, q, p, … and the
+// name lists the couplings from the largest down ("dt": large doublet of
+// small triplets). A pattern that fails any step is "m".
+
+const (
+	// roofTolerance is the largest relative difference between mirror lines
+	// still taken as first-order (roofing of weakly coupled pairs).
+	roofTolerance = 0.4
+	// unitTolerance is how far a line may lie from a whole number of units.
+	unitTolerance = 0.3
+	maxComponents = 256 // 8 couplings
+	maxLetters    = 4   // "dddd" is the longest name given
+)
+
+// multipletNames names a group of c equal couplings (c+1 lines of Pascal's
+// triangle).
+var multipletNames = []string{"", "d", "t", "q", "p", "sext", "sept", "oct"}
+
+// group is a multiplet during processing.
+type group struct {
+	lines        []int // indices into the line slice, ascending ppm
+	centerPPM    float64
+	from, to     float64 // integration region
+	raw          float64 // area before scaling
+	multiplicity string
+	j            []float64
+	label        string
+}
+
+// groupLines partitions the non-artifact lines (ascending ppm) into
+// multiplets. valley(i, j) returns the lowest trace value between lines i
+// and j, or +Inf when there is no trace.
+func groupLines(ls []line, fieldMHz, jMaxHz, sigma float64, valley func(a, b int) float64) []group {
+	var out []group
+	var cur []int
+	for i := range ls {
+		if ls[i].artifact != "" {
+			continue
+		}
+		if len(cur) > 0 {
+			p := cur[len(cur)-1]
+			gap := (ls[i].ppm - ls[p].ppm) * fieldMHz
+			floor := math.Max(3*sigma, 0.25*math.Min(ls[i].height, ls[p].height))
+			if gap > jMaxHz && !(valley(p, i) > floor) {
+				out = append(out, group{lines: cur})
+				cur = nil
+			}
+		}
+		cur = append(cur, i)
+	}
+	if len(cur) > 0 {
+		out = append(out, group{lines: cur})
+	}
+	return out
+}
+
+// analyze sets the multiplicity, couplings and centre of g.
+func (g *group) analyze(ls []line, fieldMHz float64) {
+	n := len(g.lines)
+	hz := make([]float64, n)
+	h := make([]float64, n)
+	var widths []float64
+	for k, i := range g.lines {
+		hz[k] = ls[i].ppm * fieldMHz
+		h[k] = ls[i].height
+		if ls[i].widthHz > 0 {
+			widths = append(widths, ls[i].widthHz)
+		}
+	}
+	tol := 0.25
+	if len(widths) > 0 {
+		tol = math.Max(tol, 0.3*median(widths))
+	}
+	mult, js, center, ok := firstOrder(hz, h, tol)
+	if ok {
+		g.multiplicity, g.j, g.centerPPM = mult, js, center/fieldMHz
+		return
+	}
+	g.multiplicity, g.j = "m", nil
+	var sw, s float64
+	for k := range hz {
+		sw += h[k]
+		s += h[k] * hz[k]
+	}
+	g.centerPPM = s / sw / fieldMHz
+	if !(sw > 0) {
+		g.centerPPM = (hz[0] + hz[n-1]) / 2 / fieldMHz
+	}
+}
+
+// firstOrder analyses lines at positions hz (ascending, Hz) with heights h.
+// It returns the multiplicity name, the couplings from the largest down (one
+// value per group of equal couplings), the centre in Hz, and ok=false when
+// the pattern is not first-order.
+func firstOrder(hz, h []float64, tol float64) (string, []float64, float64, bool) {
+	n := len(hz)
+	if n == 0 {
+		return "", nil, 0, false
+	}
+	center := (hz[0] + hz[n-1]) / 2
+	if n == 1 {
+		return "s", []float64{}, center, true
+	}
+	// Symmetry in positions and intensities; then symmetrise.
+	p := make([]float64, n)
+	u := make([]float64, n)
+	for i := 0; i < n; i++ {
+		k := n - 1 - i
+		if math.Abs((hz[i]-center)+(hz[k]-center)) > tol {
+			return "", nil, center, false
+		}
+		mx := math.Max(h[i], h[k])
+		if !(mx > 0) || math.Abs(h[i]-h[k]) > roofTolerance*mx {
+			return "", nil, center, false
+		}
+		p[i] = (hz[i] - hz[k]) / 2
+		u[i] = (h[i] + h[k]) / 2
+	}
+	units, ok := wholeUnits(u)
+	if !ok {
+		return "", nil, center, false
+	}
+	comp := make([]float64, 0, maxComponents)
+	for i, r := range units {
+		for c := 0; c < r; c++ {
+			comp = append(comp, p[i])
+		}
+	}
+	js, ok := peelCouplings(comp, tol)
+	if !ok {
+		return "", nil, center, false
+	}
+	name, vals, ok := nameCouplings(js, tol)
+	if !ok {
+		return "", nil, center, false
+	}
+	return name, vals, center, true
+}
+
+// wholeUnits expresses intensities in units of the outer line and checks that
+// they are near whole numbers summing to a power of two.
+func wholeUnits(u []float64) ([]int, bool) {
+	unit := u[0]
+	if !(unit > 0) {
+		return nil, false
+	}
+	r := make([]int, len(u))
+	total := 0
+	for i, v := range u {
+		x := v / unit
+		k := int(math.Round(x))
+		if k < 1 || math.Abs(x-float64(k)) > math.Max(unitTolerance, 0.15*float64(k)) {
+			return nil, false
+		}
+		r[i] = k
+		total += k
+		if total > maxComponents {
+			return nil, false
+		}
+	}
+	if total < 2 || total&(total-1) != 0 {
+		return nil, false
+	}
+	return r, true
+}
+
+// peelCouplings removes one doublet splitting at a time from the component
+// positions comp (ascending) and returns the couplings in the order found
+// (smallest first).
+func peelCouplings(comp []float64, tol float64) ([]float64, bool) {
+	var js []float64
+	for len(comp) > 1 {
+		sort.Float64s(comp)
+		j := comp[1] - comp[0]
+		if j < tol {
+			return nil, false
+		}
+		used := make([]bool, len(comp))
+		next := make([]float64, 0, len(comp)/2)
+		for a := range comp {
+			if used[a] {
+				continue
+			}
+			used[a] = true
+			best, bestD := -1, tol
+			for b := a + 1; b < len(comp); b++ {
+				if used[b] {
+					continue
+				}
+				d := math.Abs(comp[b] - comp[a] - j)
+				if d <= bestD {
+					best, bestD = b, d
+				}
+				if comp[b]-comp[a] > j+tol {
+					break
+				}
+			}
+			if best < 0 {
+				return nil, false
+			}
+			used[best] = true
+			next = append(next, (comp[a]+comp[best])/2)
+		}
+		// Refine J as the mean distance of the pairs is implicit in the
+		// midpoints; record the first estimate.
+		js = append(js, j)
+		comp = next
+	}
+	return js, true
+}
+
+// nameCouplings merges equal couplings (within tol) and names the pattern
+// from the largest coupling down. Each merged value is the mean of its
+// members, which for n equal couplings is the outer-line distance / n.
+func nameCouplings(js []float64, tol float64) (string, []float64, bool) {
+	sort.Sort(sort.Reverse(sort.Float64Slice(js)))
+	var name strings.Builder
+	var vals []float64
+	letters := 0
+	for i := 0; i < len(js); {
+		k := i + 1
+		sum := js[i]
+		for k < len(js) && js[i]-js[k] <= tol {
+			sum += js[k]
+			k++
+		}
+		c := k - i
+		if c >= len(multipletNames) {
+			return "", nil, false
+		}
+		name.WriteString(multipletNames[c])
+		vals = append(vals, sum/float64(c))
+		letters++
+		i = k
+	}
+	if letters > maxLetters {
+		return "", nil, false
+	}
+	return name.String(), vals, true
+}
