@@ -12,7 +12,7 @@ import (
 // lower still so that a false claim costs nothing.
 const (
 	maxPoints   = 1 << 22
-	maxPrealloc = 1 << 18
+	maxPrealloc = 1 << 16
 )
 
 // ReadJCAMPAll reads every spectrum block of a JCAMP-DX file: XYDATA,

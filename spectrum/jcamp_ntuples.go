@@ -40,7 +40,7 @@ func (br *blockReader) list(name string) []string {
 	return f
 }
 
-func at(list []string, i int) string {
+func listAt(list []string, i int) string {
 	if i < 0 || i >= len(list) {
 		return ""
 	}
@@ -107,7 +107,7 @@ func (br *blockReader) pickPage(v ntVars) (*ntPage, int, int, error) {
 		if err != nil {
 			return nil, 0, 0, err
 		}
-		real := strings.Contains(strings.ToUpper(at(v.names, y)), "REAL") || strings.EqualFold(at(v.symbols, y), "R")
+		real := strings.Contains(strings.ToUpper(listAt(v.names, y)), "REAL") || strings.EqualFold(listAt(v.symbols, y), "R")
 		if pick == nil || real {
 			pick, xs, ys = p, x, y
 		}
@@ -164,7 +164,7 @@ func (br *blockReader) decodePage(v ntVars, pg *ntPage, x, y int) error {
 	p := xyParams{xFactor: 1, yFactor: 1, nPoints: -1, table: dt}
 	line := br.b.find("NTUPLES").line
 	num := func(list []string, i int, what string) (float64, bool, error) {
-		s := at(list, i)
+		s := listAt(list, i)
 		if s == "" {
 			return 0, false, nil
 		}
@@ -210,7 +210,7 @@ func (br *blockReader) decodePage(v ntVars, pg *ntPage, x, y int) error {
 		p.nPoints = int(math.Min(dim, math.MaxInt32*2))
 		p.nPointsLine = line
 	}
-	p.units, p.unitsLine = at(v.units, x), line
+	p.units, p.unitsLine = listAt(v.units, x), line
 	if r := br.b.find("UNITS"); r != nil {
 		p.unitsLine = r.line
 	}

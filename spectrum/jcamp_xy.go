@@ -205,8 +205,8 @@ func (br *blockReader) setTrace(xs, ys []float64, units string, unitsLine, line 
 		return err
 	}
 	if len(xs) > 1 && xs[0] > xs[len(xs)-1] {
-		reverse(xs)
-		reverse(ys)
+		reverseFloats(xs)
+		reverseFloats(ys)
 	}
 	br.s.PPM, br.s.Y = xs, ys
 	return nil
@@ -240,7 +240,7 @@ func (br *blockReader) shiftReference(xs []float64) error {
 	return nil
 }
 
-func reverse(v []float64) {
+func reverseFloats(v []float64) {
 	for i, j := 0, len(v)-1; i < j; i, j = i+1, j-1 {
 		v[i], v[j] = v[j], v[i]
 	}
