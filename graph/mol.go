@@ -69,6 +69,15 @@ type Mol struct {
 	Source string // the text the molecule was read from, if any
 
 	adj [][]int // bond indices per atom
+
+	// Set by Perceive.
+	perceived bool
+	rings     [][]int // SSSR, atom indices in ring order
+	ringBonds [][]int // bond indices of each ring, parallel to rings
+	ringBond  []bool  // per bond: in some ring
+	atomRings [][]int // per atom: indices into rings
+	kekulized bool
+	pi        []bool // per atom: takes a double bond in the Kekulé form of a written aromatic system
 }
 
 // AddAtom appends an atom and returns its index.
@@ -92,6 +101,30 @@ func (m *Mol) AddBond(b Bond) int {
 	m.adj[b.A] = append(m.adj[b.A], i)
 	m.adj[b.B] = append(m.adj[b.B], i)
 	return i
+}
+
+// ReorderBonds sets the order in which BondsOf lists the bonds of atom a
+// (the SMILES parser uses it to keep the written neighbour order that
+// tetrahedral marks refer to). It panics unless order is a permutation of
+// BondsOf(a).
+func (m *Mol) ReorderBonds(a int, order []int) {
+	cur := m.adj[a]
+	if len(order) != len(cur) {
+		panic("graph: ReorderBonds: not a permutation")
+	}
+	for _, bi := range order {
+		found := false
+		for _, c := range cur {
+			if c == bi {
+				found = true
+				break
+			}
+		}
+		if !found {
+			panic("graph: ReorderBonds: not a permutation")
+		}
+	}
+	m.adj[a] = append(cur[:0:0], order...)
 }
 
 // BondsOf returns the indices of the bonds at atom a, in the order they were
@@ -119,3 +152,14 @@ func (m *Mol) BondBetween(a, b int) int {
 	}
 	return -1
 }
+
+// AtomError is a chemistry error found by Perceive, tied to an atom so that
+// a parser can point at the place in the source where the atom was written.
+type AtomError struct {
+	Atom int    // atom index
+	Pos  int    // the atom's source offset (Atom.Pos); -1 when built in code
+	Msg  string // problem, plus a likely cause where one is known
+}
+
+// Error returns "graph: atom N: msg".
+func (e *AtomError) Error() string { return fmt.Sprintf("graph: atom %d: %s", e.Atom, e.Msg) }

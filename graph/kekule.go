@@ -1,0 +1,260 @@
+package graph
+
+import "fmt"
+
+// Kekulization.
+//
+// Every atom written aromatic that has room for one more bond (m.pi, decided
+// from its valence in assignAromatic) must get exactly one double bond among
+// its aromatic bonds. That is a perfect matching on the graph of aromatic
+// bonds between such atoms; it is found with a greedy start and Edmonds'
+// blossom algorithm for augmenting paths (Edmonds, Can. J. Math. 17, 449,
+// 1965), which also handles odd rings such as azulene's.
+
+// demoteAromatic turns aromatic bonds that cannot be part of an aromatic
+// ring into single bonds (the bond joining the rings of biphenyl written
+// c1ccccc1c1ccccc1, or ':' between aliphatic atoms), and reports aromatic
+// atoms outside any ring.
+func (m *Mol) demoteAromatic() []*AtomError {
+	for bi := range m.Bonds {
+		b := &m.Bonds[bi]
+		if !b.Aromatic {
+			continue
+		}
+		if !m.ringBond[bi] || !m.Atoms[b.A].Aromatic || !m.Atoms[b.B].Aromatic {
+			b.Aromatic = false
+			b.Order = 1
+		}
+	}
+	var errs []*AtomError
+	for a := range m.Atoms {
+		if m.Atoms[a].Aromatic && len(m.atomRings[a]) == 0 {
+			errs = append(errs, m.atomErr(a, fmt.Sprintf(
+				"aromatic atom outside a ring (write %s in upper case, or close the ring)",
+				lowerSym(m.Atoms[a].Element))))
+		}
+	}
+	return errs
+}
+
+func lowerSym(s string) string {
+	if s == "" {
+		return s
+	}
+	b := []byte(s)
+	if b[0] >= 'A' && b[0] <= 'Z' {
+		b[0] += 'a' - 'A'
+	}
+	return string(b)
+}
+
+// kekulize assigns Kekulé orders to the aromatic bonds.
+func (m *Mol) kekulize() *AtomError {
+	var nodes []int
+	local := make([]int, len(m.Atoms))
+	for a := range m.Atoms {
+		local[a] = -1
+		if m.pi[a] {
+			local[a] = len(nodes)
+			nodes = append(nodes, a)
+		}
+	}
+	for bi := range m.Bonds {
+		if m.Bonds[bi].Aromatic {
+			m.Bonds[bi].Order = 1
+		}
+	}
+	m.kekulized = true
+	if len(nodes) == 0 {
+		return nil
+	}
+	g := make([][]int, len(nodes))
+	for i, a := range nodes {
+		for _, bi := range m.adj[a] {
+			b := &m.Bonds[bi]
+			if o := local[b.Other(a)]; b.Aromatic && o >= 0 {
+				g[i] = append(g[i], o)
+			}
+		}
+	}
+	match := maxMatching(g)
+	for i, j := range match {
+		if j < 0 {
+			return m.kekuleErr(nodes[i], nodes, match)
+		}
+		if i < j {
+			m.Bonds[m.BondBetween(nodes[i], nodes[j])].Order = 2
+		}
+	}
+	return nil
+}
+
+// kekuleErr explains a failed kekulization, pointing at a pyrrole-type
+// nitrogen written without its hydrogen when there is one.
+func (m *Mol) kekuleErr(a int, nodes, match []int) *AtomError {
+	for i, n := range nodes {
+		at := &m.Atoms[n]
+		if at.Element == "N" && at.Charge == 0 && at.HCount() == 0 && m.Degree(n) == 2 &&
+			m.sameSystem(n, a) {
+			_ = i
+			return m.atomErr(n, "cannot kekulize aromatic system: no alternating single and double bonds fit (did you mean [nH]?)")
+		}
+	}
+	return m.atomErr(a, fmt.Sprintf(
+		"cannot kekulize aromatic system: no double bond left for aromatic %s (check the ring size and the hydrogens written in brackets)",
+		lowerSym(m.Atoms[a].Element)))
+}
+
+// sameSystem reports whether a and b share a ring system.
+func (m *Mol) sameSystem(a, b int) bool {
+	seen := map[int]bool{a: true}
+	queue := []int{a}
+	for len(queue) > 0 {
+		x := queue[0]
+		queue = queue[1:]
+		if x == b {
+			return true
+		}
+		for _, bi := range m.adj[x] {
+			if o := m.Bonds[bi].Other(x); m.ringBond[bi] && !seen[o] {
+				seen[o] = true
+				queue = append(queue, o)
+			}
+		}
+	}
+	return false
+}
+
+// maxMatching returns a maximum matching of the undirected graph g as a
+// partner index per node (-1 when unmatched).
+func maxMatching(g [][]int) []int {
+	n := len(g)
+	match := make([]int, n)
+	for i := range match {
+		match[i] = -1
+	}
+	// Greedy start: nodes with fewest free neighbours first.
+	for pass := 1; pass <= 3; pass++ {
+		for v := range n {
+			if match[v] >= 0 {
+				continue
+			}
+			free := 0
+			for _, w := range g[v] {
+				if match[w] < 0 {
+					free++
+				}
+			}
+			if free == 0 || (free > pass && pass < 3) {
+				continue
+			}
+			for _, w := range g[v] {
+				if match[w] < 0 {
+					match[v], match[w] = w, v
+					break
+				}
+			}
+		}
+	}
+	b := newBlossom(g, match)
+	for v := range n {
+		if match[v] < 0 {
+			b.augment(v)
+		}
+	}
+	return match
+}
+
+type blossom struct {
+	g            [][]int
+	match, p     []int
+	base         []int
+	used, inBlos []bool
+	queue        []int
+}
+
+func newBlossom(g [][]int, match []int) *blossom {
+	n := len(g)
+	return &blossom{g: g, match: match, p: make([]int, n), base: make([]int, n),
+		used: make([]bool, n), inBlos: make([]bool, n)}
+}
+
+func (b *blossom) augment(root int) {
+	u := b.findPath(root)
+	for u >= 0 {
+		pv := b.p[u]
+		ppv := b.match[pv]
+		b.match[u], b.match[pv] = pv, u
+		u = ppv
+	}
+}
+
+func (b *blossom) lca(x, y int) int {
+	seen := make([]bool, len(b.g))
+	for {
+		x = b.base[x]
+		seen[x] = true
+		if b.match[x] < 0 {
+			break
+		}
+		x = b.p[b.match[x]]
+	}
+	for {
+		y = b.base[y]
+		if seen[y] {
+			return y
+		}
+		y = b.p[b.match[y]]
+	}
+}
+
+func (b *blossom) markPath(v, base, child int) {
+	for b.base[v] != base {
+		b.inBlos[b.base[v]] = true
+		b.inBlos[b.base[b.match[v]]] = true
+		b.p[v] = child
+		child = b.match[v]
+		v = b.p[b.match[v]]
+	}
+}
+
+func (b *blossom) findPath(root int) int {
+	for i := range b.g {
+		b.used[i], b.p[i], b.base[i] = false, -1, i
+	}
+	b.used[root] = true
+	b.queue = append(b.queue[:0], root)
+	for qi := 0; qi < len(b.queue); qi++ {
+		v := b.queue[qi]
+		for _, to := range b.g[v] {
+			if b.base[v] == b.base[to] || b.match[v] == to {
+				continue
+			}
+			if to == root || (b.match[to] >= 0 && b.p[b.match[to]] >= 0) {
+				cur := b.lca(v, to)
+				for i := range b.inBlos {
+					b.inBlos[i] = false
+				}
+				b.markPath(v, cur, to)
+				b.markPath(to, cur, v)
+				for i := range b.g {
+					if b.inBlos[b.base[i]] {
+						b.base[i] = cur
+						if !b.used[i] {
+							b.used[i] = true
+							b.queue = append(b.queue, i)
+						}
+					}
+				}
+			} else if b.p[to] < 0 {
+				b.p[to] = v
+				if b.match[to] < 0 {
+					return to
+				}
+				b.used[b.match[to]] = true
+				b.queue = append(b.queue, b.match[to])
+			}
+		}
+	}
+	return -1
+}
