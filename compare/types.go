@@ -66,6 +66,9 @@ type Options struct {
 	Mode        spin.Mode // prediction mode for strongly coupled clusters
 	LineWidthHz float64   // line width for rendered predictions; 0 = 1 Hz
 	MinSNR      float64   // peak-picking threshold passed to processing; 0 = its default
+	// Predictor, when not nil, replaces the default prediction (SMILES
+	// parsing and predict.Predict) for every structure of the check.
+	Predictor Predictor `json:"-"`
 	// MaxCandidates caps the number of candidate structures scored (work cap);
 	// 0 means 20.
 	MaxCandidates int

@@ -1,0 +1,305 @@
+package compare
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+
+	"shiftwise/predict"
+	"shiftwise/spectrum"
+)
+
+// Predictor predicts the 1H spectrum of a SMILES string at a field and in a
+// solvent. Options.Predictor overrides the default (smiles.Parse followed by
+// predict.Predict).
+type Predictor func(smiles string, fieldMHz float64, solvent string) (*predict.Prediction, error)
+
+// defaultPredictor and defaultProcessor are set by pipeline.go to the real
+// parser/predictor and spectrum processing.
+var (
+	defaultPredictor func(opt Options) Predictor
+	defaultProcessor func(s *spectrum.Spectrum, solvent string, opt Options) (*spectrum.PeakList, error)
+	defaultReader    func(path string) (*spectrum.Spectrum, error)
+)
+
+// Check predicts the intended structure, processes the spectrum, assigns
+// predicted signals to measured multiplets, explains every other peak,
+// estimates purity, ranks the candidates and gives a verdict with reasons.
+// Errors concern the input (unreadable spectrum, unparsable SMILES of the
+// main structure); problems with a candidate or an impurity are reported in
+// the Result instead.
+func Check(in Input, opt Options) (*Result, error) {
+	pl, trace, warn, err := loadPeaks(in, opt)
+	if err != nil {
+		return nil, err
+	}
+	field := opt.FieldMHz
+	if field <= 0 {
+		field = pl.FieldMHz
+	}
+	if field <= 0 && trace != nil {
+		field = trace.FieldMHz
+	}
+	solvName := opt.Solvent
+	if solvName == "" && in.Spectrum != nil {
+		solvName = in.Spectrum.Solvent
+	}
+	if solvName == "" && trace != nil {
+		solvName = trace.Solvent
+	}
+	solv, solvOK := LookupSolvent(solvName)
+	if !solvOK {
+		if solvName == "" {
+			warn = append(warn, "solvent unknown: residual solvent and contaminants cannot be identified (give --solvent)")
+		} else {
+			warn = append(warn, fmt.Sprintf("solvent %q not in the impurity table: residual solvent and contaminants cannot be identified", solvName))
+		}
+	}
+	canon := solvName
+	if solvOK {
+		canon = solv.Name
+	}
+	pr := opt.Predictor
+	if pr == nil {
+		if defaultPredictor == nil {
+			return nil, errors.New("compare: no predictor available")
+		}
+		pr = defaultPredictor(opt)
+	}
+	pred := in.Prediction
+	if pred == nil {
+		if in.Smiles == "" {
+			return nil, errors.New("check: no structure given (SMILES)")
+		}
+		pred, err = pr(in.Smiles, field, canon)
+		if err != nil {
+			return nil, err
+		}
+	}
+	ms := prepMultiplets(pl)
+	pre := claimFixed(ms, solv, solvOK)
+	extras, xwarn := predictExtras(in, pr, field, canon)
+	warn = append(warn, xwarn...)
+
+	main := evaluateStructure(in.Smiles, pred, ms, pre, field, solv, solvOK, extras)
+	res := buildResult(main, ms, pl, trace, field, canon)
+	res.Warnings = append(append(res.Warnings, warn...), pred.Warnings...)
+	if in.Standard != nil {
+		res.Purity.QNMR, err = qnmrFor(in.Standard, main, ms, extras)
+		if err != nil {
+			res.Warnings = append(res.Warnings, err.Error())
+		} else {
+			p, u := res.Purity.QNMR.PurityPercent, res.Purity.QNMR.Uncertainty
+			res.Purity.QNMRMassPercent, res.Purity.UncertaintyPercent = &p, &u
+		}
+	}
+	rankCandidates(res, in, opt, pr, main, ms, pre, field, solv, solvOK, extras, canon)
+	return res, nil
+}
+
+func loadPeaks(in Input, opt Options) (*spectrum.PeakList, *spectrum.Spectrum, []string, error) {
+	if in.Peaks != nil {
+		return in.Peaks, in.Peaks.Trace, nil, nil
+	}
+	s := in.Spectrum
+	if s == nil {
+		if in.SpectrumPath == "" {
+			return nil, nil, nil, errors.New("check: no spectrum given")
+		}
+		if defaultReader == nil {
+			return nil, nil, nil, errors.New("compare: no spectrum reader available")
+		}
+		var err error
+		if s, err = defaultReader(in.SpectrumPath); err != nil {
+			return nil, nil, nil, err
+		}
+	}
+	if defaultProcessor == nil {
+		return nil, nil, nil, errors.New("compare: no spectrum processing available")
+	}
+	solv := opt.Solvent
+	pl, err := defaultProcessor(s, solv, opt)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	trace := pl.Trace
+	if trace == nil {
+		trace = s
+	}
+	return pl, trace, nil, nil
+}
+
+func predictExtras(in Input, pr Predictor, field float64, solvent string) ([]extraSpecies, []string) {
+	var out []extraSpecies
+	var warn []string
+	add := func(smi, kind string) {
+		p, err := pr(smi, field, solvent)
+		if err != nil {
+			warn = append(warn, fmt.Sprintf("%s %s not used: %v", kind, smi, err))
+			return
+		}
+		out = append(out, extraSpecies{name: kind + " " + smi, kind: kind, smiles: smi, sig: p.Signals, mw: p.MolecularWeight})
+	}
+	if in.Standard != nil && in.Standard.Smiles != "" {
+		add(in.Standard.Smiles, "standard")
+	}
+	for _, s := range in.Impurities {
+		add(s, "impurity")
+	}
+	return out, warn
+}
+
+// evaluateStructure runs assignment, explanation and scoring for one
+// prediction.
+func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []string, field float64,
+	solv SolventInfo, solvOK bool, extras []extraSpecies) *evaluation {
+	avail := make([]bool, len(ms))
+	penalty := make([]float64, len(ms))
+	for j := range ms {
+		avail[j] = pre[j] == "" || pre[j] == "solvent"
+		if pre[j] == "solvent" {
+			penalty[j] = solventCost
+		}
+	}
+	sig := pred.Signals
+	if len(sig) > maxSignals {
+		sig = sig[:maxSignals]
+	}
+	p2 := *pred
+	p2.Signals = sig
+	sigM, scale, spread := matchStructure(sig, ms, avail, penalty, field)
+	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread}
+	ev.ex = explain(ms, pre, sig, sigM, scale, field, solv, solvOK, extras)
+	ev.evaluate(ms, field)
+	return ev
+}
+
+// maxSignals caps the work of one assignment (a 30-heavy-atom molecule has
+// at most about 40 environments).
+const maxSignals = 80
+
+func buildResult(ev *evaluation, ms []mplet, pl *spectrum.PeakList, trace *spectrum.Spectrum, field float64, solvent string) *Result {
+	r := &Result{
+		Verdict: ev.verdict, Score: round3(ev.score), Reasons: ev.reasons,
+		Assignments: ev.assign, Unexplained: ev.ex.unexplained, Missing: ev.missing,
+		Smiles: ev.smiles, Solvent: solvent, FieldMHz: field, Scores: roundParts(ev.parts),
+		HPerArea: ev.scale, Found: ev.ex.found, Artifact: ev.ex.artifacts, Cautions: ev.caution,
+		Advisory: AdvisoryText, Details: ev.fits, Prediction: ev.pred, Peaks: pl, Trace: trace,
+	}
+	if r.Reasons == nil {
+		r.Reasons = []string{}
+	}
+	if r.Assignments == nil {
+		r.Assignments = []Assignment{}
+	}
+	if r.Unexplained == nil {
+		r.Unexplained = []Unexplained{}
+	}
+	if r.Missing == nil {
+		r.Missing = []string{}
+	}
+	r.Purity = molarPurity(ev)
+	for k := range r.Found {
+		if a, ok := ev.ex.amounts[r.Found[k].Name]; ok {
+			for _, c := range r.Purity.Components {
+				if c.Name == r.Found[k].Name {
+					r.Found[k].MolPercent = math.Round(c.MolPercent*100) / 100
+				}
+			}
+			_ = a
+		}
+	}
+	r.Candidates = []Candidate{}
+	return r
+}
+
+func roundParts(p PartScores) PartScores {
+	return PartScores{Shifts: round3(p.Shifts), Splitting: round3(p.Splitting), Integrals: round3(p.Integrals),
+		Explained: round3(p.Explained), Missing: round3(p.Missing)}
+}
+
+// molarPurity turns the identified species into a molar composition and
+// states its assumptions. Its uncertainty combines the scatter of the
+// integral scale over the compound's multiplets with a 10 % relative
+// uncertainty of each small impurity integral (common practice, no source).
+func molarPurity(ev *evaluation) Purity {
+	name := "compound"
+	if ev.smiles != "" {
+		name = "compound " + ev.smiles
+	}
+	pct, comps := ev.ex.molar(name)
+	for k := range comps {
+		comps[k].MolPercent = math.Round(comps[k].MolPercent*100) / 100
+	}
+	imp := 1 - pct/100
+	rel := math.Hypot(ev.spread, 0.10)
+	u := 100 * pct / 100 * imp * rel
+	if len(ev.ex.amounts) == 0 {
+		u = 0
+	}
+	p := round2(pct)
+	uu := round2(u)
+	pur := Purity{MolarPercent: &p, MolarUncertainty: &uu, UncertaintyPercent: &uu, Components: comps,
+		Assumptions: []string{
+			"integrals per proton are equal for all species (full relaxation between scans, flat baseline, no saturation)",
+			"only identified species are counted: residual solvent, water and unidentified peaks are left out",
+			"integral scale fitted as the weighted median over the assigned multiplets of the compound",
+		}}
+	if ev.scale <= 0 {
+		pur.MolarPercent, pur.MolarUncertainty, pur.UncertaintyPercent = nil, nil, nil
+	}
+	if ev.ex.total > 0 && ev.ex.unknownArea > 0 {
+		pur.Assumptions = append(pur.Assumptions, fmt.Sprintf("unidentified peaks (%.1f %% of the intensity) are not included", 100*ev.ex.unknownArea/ev.ex.total))
+	}
+	return pur
+}
+
+func rankCandidates(res *Result, in Input, opt Options, pr Predictor, main *evaluation, ms []mplet, pre []string,
+	field float64, solv SolventInfo, solvOK bool, extras []extraSpecies, solvent string) {
+	if len(in.Candidates) == 0 {
+		return
+	}
+	limit := opt.MaxCandidates
+	if limit <= 0 {
+		limit = 20
+	}
+	type entry struct {
+		c  Candidate
+		ev *evaluation
+	}
+	list := []entry{{Candidate{Smiles: in.Smiles, Score: round3(main.score), Verdict: main.verdict, Main: true}, main}}
+	for k, smi := range in.Candidates {
+		if k >= limit {
+			res.Warnings = append(res.Warnings, fmt.Sprintf("only the first %d candidates were scored", limit))
+			break
+		}
+		p, err := pr(smi, field, solvent)
+		if err != nil {
+			list = append(list, entry{Candidate{Smiles: smi, Verdict: Review, Error: err.Error()}, nil})
+			continue
+		}
+		ev := evaluateStructure(smi, p, ms, pre, field, solv, solvOK, extras)
+		list = append(list, entry{Candidate{Smiles: smi, Score: round3(ev.score), Verdict: ev.verdict}, ev})
+	}
+	sort.SliceStable(list, func(a, b int) bool {
+		if (list[a].ev == nil) != (list[b].ev == nil) {
+			return list[a].ev != nil
+		}
+		return list[a].c.Score > list[b].c.Score
+	})
+	for k := range list {
+		list[k].c.Rank = k + 1
+		if k > 0 && list[k].ev != nil {
+			list[k].c.Discriminating = list[k].ev.discriminating(ms)
+		}
+		res.Candidates = append(res.Candidates, list[k].c)
+	}
+	if best := list[0]; !best.c.Main && best.ev != nil {
+		res.Reasons = append(res.Reasons, fmt.Sprintf("candidate %s fits the spectrum better (score %.2f vs %.2f)",
+			best.c.Smiles, best.c.Score, main.score))
+		if res.Verdict == Consistent && best.c.Score-main.score > 0.05 {
+			res.Verdict = Review
+		}
+	}
+}

@@ -1,0 +1,165 @@
+package compare
+
+import (
+	"encoding/json"
+	"fmt"
+	"math"
+	"strings"
+	"testing"
+
+	"shiftwise/predict"
+	"shiftwise/spectrum"
+)
+
+// handPredictor serves hand-made predictions, so that compare is tested on
+// its own. Shifts are handbook values for butanone and isobutyraldehyde in
+// CDCl3 (common practice, no source; values from memory), SDs typical of
+// increment predictions.
+func handPredictor(t *testing.T) Predictor {
+	preds := map[string]*predict.Prediction{
+		"CCC(C)=O": {Smiles: "CCC(C)=O", MolecularWeight: 72.11, Signals: []predict.Signal{
+			{Label: "A", NH: 3, Kind: "CH3", ShiftPPM: 1.05, ShiftSD: 0.1, Multiplicity: "t", Couplings: []predict.Coupling{{To: "C", JHz: 7.3}}},
+			{Label: "B", NH: 3, Kind: "CH3", ShiftPPM: 2.12, ShiftSD: 0.1, Multiplicity: "s"},
+			{Label: "C", NH: 2, Kind: "CH2", ShiftPPM: 2.45, ShiftSD: 0.1, Multiplicity: "q", Couplings: []predict.Coupling{{To: "A", JHz: 7.3}}},
+		}},
+		"CC(C)C=O": {Smiles: "CC(C)C=O", MolecularWeight: 72.11, Signals: []predict.Signal{
+			{Label: "A", NH: 6, Kind: "CH3", ShiftPPM: 1.12, ShiftSD: 0.1, Multiplicity: "d"},
+			{Label: "B", NH: 1, Kind: "CH", ShiftPPM: 2.42, ShiftSD: 0.15, Multiplicity: "m"},
+			{Label: "C", NH: 1, Kind: "CHO", ShiftPPM: 9.62, ShiftSD: 0.1, Multiplicity: "d"},
+		}},
+		// 1,3,5-trimethoxybenzene as a qNMR standard: 6.09 s 3H, 3.77 s 9H
+		// (value from memory).
+		"COc1cc(OC)cc(OC)c1": {Smiles: "COc1cc(OC)cc(OC)c1", MolecularWeight: 168.19, Signals: []predict.Signal{
+			{Label: "A", NH: 9, Kind: "CH3", ShiftPPM: 3.78, ShiftSD: 0.1, Multiplicity: "s"},
+			{Label: "B", NH: 3, Kind: "ArH", ShiftPPM: 6.10, ShiftSD: 0.1, Multiplicity: "s"},
+		}},
+	}
+	return func(smi string, field float64, solvent string) (*predict.Prediction, error) {
+		p, ok := preds[smi]
+		if !ok {
+			return nil, fmt.Errorf("no hand prediction for %s", smi)
+		}
+		c := *p
+		c.FieldMHz, c.Solvent = field, solvent
+		return &c, nil
+	}
+}
+
+func mp(ppm, halfHz, area float64, mult string, j ...float64) spectrum.Multiplet {
+	return spectrum.Multiplet{PPM: ppm, FromPPM: ppm - halfHz/400, ToPPM: ppm + halfHz/400, Integral: area, Multiplicity: mult, JHz: j}
+}
+
+// butanonePeaks is a hand-made peak list of butanone (measured shifts in
+// CDCl3: 1.06 t, 2.14 s, 2.44 q; common practice, value from memory) with
+// CHCl3, water and 2 mol% ethyl acetate (per H: 0.02 × {3, 2, 3}), and a
+// pair of 13C satellites of the 2.14 singlet (±64 Hz, 0.55 %).
+func butanonePeaks() *spectrum.PeakList {
+	k := 10.0 // area per H
+	return &spectrum.PeakList{FieldMHz: 400, Multiplets: []spectrum.Multiplet{
+		mp(7.26, 2, 1.5*k, "s"),
+		mp(4.12, 12, 0.02*2*k, "q", 7.1),
+		mp(2.44, 12, 2*k, "q", 7.3),
+		mp(2.14+64.0/400, 2, 0.0055*3*k, "s"),
+		mp(2.14, 2, 3*k, "s"),
+		mp(2.14-64.0/400, 2, 0.0055*3*k, "s"),
+		mp(2.05, 2, 0.02*3*k, "s"),
+		mp(1.56, 4, 0.4*k, "s"),
+		mp(1.26, 8, 0.02*3*k, "t", 7.1),
+		mp(1.06, 8, 3*k, "t", 7.3),
+	}}
+}
+
+func TestCheckHandMade(t *testing.T) {
+	t.Parallel()
+	in := Input{Smiles: "CCC(C)=O", Peaks: butanonePeaks(), Candidates: []string{"CC(C)C=O"}}
+	res, err := Check(in, Options{Solvent: "CDCl3", Predictor: handPredictor(t)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Verdict != Consistent {
+		t.Errorf("verdict %s (%.2f), want consistent; reasons %q", res.Verdict, res.Score, res.Reasons)
+	}
+	if len(res.Missing) != 0 || len(res.Assignments) != 3 {
+		t.Errorf("missing %v, assignments %+v", res.Missing, res.Assignments)
+	}
+	// Scale: 10 area units per H by construction.
+	if math.Abs(res.HPerArea-0.1) > 1e-9 {
+		t.Errorf("H per area %g, want 0.1", res.HPerArea)
+	}
+	var names []string
+	for _, f := range res.Found {
+		names = append(names, f.Name)
+		if f.Name == "ethyl acetate" {
+			// 2 mol% ethyl acetate against 1 butanone: 0.02/1.02 = 1.96 mol%.
+			if math.Abs(f.MolPercent-1.96) > 0.05 || f.Signals != 3 {
+				t.Errorf("ethyl acetate %+v, want 1.96 mol%% from 3 signals", f)
+			}
+		}
+	}
+	joined := strings.Join(names, ",")
+	for _, want := range []string{"ethyl acetate", "water", "CHCl3"} {
+		if !strings.Contains(joined, want) {
+			t.Errorf("identified %q, want %s among them", joined, want)
+		}
+	}
+	if len(res.Artifact) != 2 {
+		t.Errorf("artifacts %+v, want the two 13C satellites", res.Artifact)
+	}
+	if res.Purity.MolarPercent == nil || math.Abs(*res.Purity.MolarPercent-98.04) > 0.05 {
+		t.Errorf("molar purity %v, want 98.04", res.Purity.MolarPercent)
+	}
+	if len(res.Candidates) != 2 || !res.Candidates[0].Main || res.Candidates[1].Verdict == Consistent {
+		t.Errorf("candidates %+v: butanone must rank first, isobutyraldehyde not consistent", res.Candidates)
+	}
+	if len(res.Candidates) == 2 && len(res.Candidates[1].Discriminating) == 0 {
+		t.Errorf("no discriminating signals named for the wrong candidate")
+	}
+	b, err := json.Marshal(res)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, key := range []string{`"verdict"`, `"score"`, `"reasons"`, `"assignments"`, `"unexplained"`, `"missing"`, `"purity"`, `"candidates"`, `"qnmr_mass_percent":null`, `"advisory"`} {
+		if !strings.Contains(string(b), key) {
+			t.Errorf("JSON lacks %s", key)
+		}
+	}
+}
+
+func TestCheckWrongStructure(t *testing.T) {
+	t.Parallel()
+	in := Input{Smiles: "CC(C)C=O", Peaks: butanonePeaks()}
+	res, err := Check(in, Options{Solvent: "CDCl3", Predictor: handPredictor(t)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Verdict != Inconsistent {
+		t.Errorf("isobutyraldehyde against butanone: verdict %s (%.2f), want inconsistent; reasons %q", res.Verdict, res.Score, res.Reasons)
+	}
+	if len(res.Missing) == 0 {
+		t.Errorf("the aldehyde signal at 9.62 should be missing: %v", res.Missing)
+	}
+}
+
+func TestCheckQNMR(t *testing.T) {
+	t.Parallel()
+	pl := butanonePeaks()
+	// Standard 1,3,5-trimethoxybenzene: 0.5 molecule per butanone
+	// molecule, area per H 10 → 3H at 6.10: 15, 9H at 3.78: 45.
+	pl.Multiplets = append(pl.Multiplets, mp(6.10, 2, 15, "s"), mp(3.78, 2, 45, "s"))
+	st := &Standard{Smiles: "COc1cc(OC)cc(OC)c1", MassMg: 10, SampleMassMg: 10, PurityPct: 99.5}
+	res, err := Check(Input{Smiles: "CCC(C)=O", Peaks: pl, Standard: st}, Options{Solvent: "CDCl3", Predictor: handPredictor(t)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Purity.QNMRMassPercent == nil {
+		t.Fatalf("no qNMR result; warnings %q", res.Warnings)
+	}
+	// By the qNMR equation: moles butanone/moles standard = 2;
+	// mass fraction = 2·(72.11/168.19)·(10/10)·99.5 = 85.32 % (hand-computed).
+	if got := *res.Purity.QNMRMassPercent; math.Abs(got-85.32) > 0.02 {
+		t.Errorf("qNMR purity %.2f, want 85.32; %+v", got, res.Purity.QNMR)
+	}
+	if res.Purity.UncertaintyPercent == nil || *res.Purity.UncertaintyPercent <= 0 {
+		t.Errorf("no qNMR uncertainty")
+	}
+}

@@ -1,0 +1,334 @@
+package compare
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"shiftwise/predict"
+)
+
+// Verdict thresholds (documented in doc.go). Tuned on the synthetic
+// reference set and the real spectra of check_ref_test.go and
+// check_real_test.go; common practice, no source for their form.
+const (
+	weightShift     = 0.35
+	weightSplit     = 0.20
+	weightIntegral  = 0.25
+	weightExplained = 0.20
+
+	consistentScore   = 0.75 // at or above: consistent unless a rule asks for review
+	inconsistentScore = 0.50 // below: inconsistent
+	maxMissingFrac    = 0.10 // missing non-exchangeable H above this: inconsistent
+	poorZ             = 3.0  // an assigned signal this many SD away is "poor"
+	badZ              = 4.0  // ... and this many is "bad"
+	maxBadFrac        = 0.20 // bad H fraction above this: inconsistent
+	minIntegralScore  = 0.60 // below: inconsistent
+	reviewIntegral    = 0.80 // below: review
+	maxUnknownPct     = 10.0 // unknown intensity above this (%): review
+)
+
+// evaluation is one structure scored against the spectrum.
+type evaluation struct {
+	smiles  string
+	pred    *predict.Prediction
+	sigM    []int // per signal: index into ms, -1 missing
+	scale   float64
+	spread  float64
+	ex      *explanation
+	parts   PartScores
+	score   float64
+	verdict Verdict
+	reasons []string
+	caution []string
+	fits    []SignalFit
+	assign  []Assignment
+	missing []string
+	z       []float64
+	mc      []float64
+}
+
+// score fills parts, score, verdict and reasons of ev.
+func (ev *evaluation) evaluate(ms []mplet, field float64) {
+	sig := ev.pred.Signals
+	ev.z = make([]float64, len(sig))
+	ev.mc = make([]float64, len(sig))
+	var wS, sS, sP, nonExch, missH, badH, poorH float64
+	hostExp := map[int]float64{}
+	hostN := map[int]int{}
+	for i, s := range sig {
+		j := ev.sigM[i]
+		if j >= 0 {
+			hostN[j]++
+			if !s.Exchangeable {
+				hostExp[j] += float64(s.NH)
+			}
+		}
+	}
+	for i, s := range sig {
+		j := ev.sigM[i]
+		fit := SignalFit{Signal: s.Label, PredictedPPM: s.ShiftPPM, ShiftSD: s.ShiftSD, Multiplicity: s.Multiplicity,
+			NH: s.NH, Exchangeable: s.Exchangeable, LowConfidence: s.LowConfidence, Multiplet: -1}
+		if !s.Exchangeable {
+			nonExch += float64(s.NH)
+		}
+		if j < 0 {
+			if s.Exchangeable {
+				fit.Note = "exchangeable proton not observed (may be broad, exchanged with solvent water, or outside the window)"
+			} else {
+				missH += float64(s.NH)
+				ev.missing = append(ev.missing, s.Label)
+				fit.Note = "no measured counterpart"
+			}
+			ev.fits = append(ev.fits, fit)
+			continue
+		}
+		m := ms[j]
+		fit.Multiplet = m.idx
+		z := shiftDistance(s.ShiftPPM, m) / signalSD(s)
+		ev.z[i] = z
+		mc := multCost(s.Multiplicity, m.mult) + jCost(distinctJ(s), m.j)
+		if hostN[j] > 1 || s.Mode == "exact" {
+			mc *= 0.3
+		}
+		ev.mc[i] = mc
+		share := m.area * ev.scale
+		if hostExp[j] > 0 && !s.Exchangeable {
+			share *= float64(s.NH) / hostExp[j]
+		}
+		ev.assign = append(ev.assign, Assignment{Signal: s.Label, PredictedPPM: s.ShiftPPM, MeasuredPPM: m.ppm,
+			Multiplicity: m.mult, IntegralH: round2(share), PredictedMultiplicity: s.Multiplicity, NH: s.NH,
+			Multiplet: m.idx, Shared: hostN[j] > 1, DeltaPPM: round3(m.ppm - s.ShiftPPM), Z: round2(z)})
+		if s.Exchangeable {
+			if z > 2 {
+				fit.Note = "exchangeable proton; its shift depends on concentration, temperature and water"
+			}
+			ev.fits = append(ev.fits, fit)
+			continue
+		}
+		w := float64(s.NH)
+		wS += w
+		sS += w * math.Exp(-z*z/8)
+		sP += w * math.Max(0, 1-mc/3)
+		if z > badZ {
+			badH += w
+		} else if z > poorZ {
+			poorH += w
+		}
+		ev.fits = append(ev.fits, fit)
+	}
+	p := &ev.parts
+	p.Shifts, p.Splitting = 1, 1
+	if wS > 0 {
+		p.Shifts, p.Splitting = sS/wS, sP/wS
+	}
+	p.Integrals = ev.integralScore(ms, hostExp)
+	if ev.ex.total > 0 {
+		p.Explained = 1 - ev.ex.unknownArea/ev.ex.total
+	}
+	if nonExch > 0 {
+		p.Missing = missH / nonExch
+	}
+	ev.score = (weightShift*p.Shifts + weightSplit*p.Splitting + weightIntegral*p.Integrals + weightExplained*p.Explained) *
+		(1 - p.Missing) * (1 - p.Missing)
+	ev.decide(ms, field, nonExch, badH, poorH)
+}
+
+// integralScore is 1 − Σ|H measured − H expected| / Σ H expected over the
+// multiplets holding compound signals (non-exchangeable H only).
+func (ev *evaluation) integralScore(ms []mplet, hostExp map[int]float64) float64 {
+	var dev, tot float64
+	for j, e := range hostExp {
+		hm := ms[j].area * ev.scale
+		d := math.Abs(hm - e)
+		if hm > e { // an overlapping impurity or water adds area: counted at half
+			d *= 0.5
+		}
+		dev += d
+		tot += e
+	}
+	if tot == 0 {
+		return 0
+	}
+	return math.Max(0, 1-dev/tot)
+}
+
+func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
+	p := ev.parts
+	sig := ev.pred.Signals
+	review, incons := false, false
+	var rs []string
+	if p.Missing > 0 {
+		rs = append(rs, ev.missingReason(ms))
+		if p.Missing > maxMissingFrac {
+			incons = true
+		} else {
+			review = true
+		}
+	}
+	for i, s := range sig {
+		if j := ev.sigM[i]; j >= 0 && !s.Exchangeable && ev.z[i] > poorZ {
+			rs = append(rs, fmt.Sprintf("signal %s predicted at %.2f %s (%d H), nearest measured multiplet %.2f %s (%.1f SD away)",
+				s.Label, s.ShiftPPM, orM(s.Multiplicity), s.NH, ms[j].ppm, orM(ms[j].mult), ev.z[i]))
+		} else if j >= 0 && !s.Exchangeable && ev.mc[i] >= 1.5 {
+			rs = append(rs, fmt.Sprintf("signal %s predicted as %s, measured multiplet at %.2f is %s",
+				s.Label, orM(s.Multiplicity), ms[j].ppm, orM(ms[j].mult)))
+			review = true
+		}
+	}
+	if nonExch > 0 && badH/nonExch > maxBadFrac {
+		incons = true
+	} else if badH+poorH > 0 {
+		review = true
+	}
+	rs = append(rs, ev.regionReasons(ms)...)
+	if p.Integrals < minIntegralScore {
+		incons = true
+	} else if p.Integrals < reviewIntegral {
+		review = true
+	}
+	if u := 100 * (1 - p.Explained); u > maxUnknownPct {
+		rs = append(rs, fmt.Sprintf("unexplained peaks hold %.0f %% of the measured intensity", u))
+		review = true
+	}
+	switch {
+	case incons || ev.score < inconsistentScore:
+		ev.verdict = Inconsistent
+	case review || ev.score < consistentScore:
+		ev.verdict = Review
+	default:
+		ev.verdict = Consistent
+	}
+	if ev.verdict == Consistent || len(rs) == 0 {
+		rs = append([]string{fmt.Sprintf("%d of %d signals matched; shifts %.0f %%, splitting %.0f %%, integrals %.0f %%, intensity explained %.0f %%",
+			len(ev.assign), len(sig), 100*p.Shifts, 100*p.Splitting, 100*p.Integrals, 100*p.Explained)}, rs...)
+	}
+	ev.reasons = rs
+	ev.caution = ev.cautions(field)
+}
+
+func (ev *evaluation) missingReason(ms []mplet) string {
+	var parts []string
+	for i, s := range ev.pred.Signals {
+		if ev.sigM[i] >= 0 || s.Exchangeable {
+			continue
+		}
+		near := ""
+		bd := math.Inf(1)
+		for _, m := range ms {
+			if d := math.Abs(m.ppm - s.ShiftPPM); d < bd {
+				bd, near = d, fmt.Sprintf("nearest measured multiplet %.2f %s", m.ppm, orM(m.mult))
+			}
+		}
+		if near == "" {
+			near = "no measured multiplet"
+		}
+		parts = append(parts, fmt.Sprintf("signal %s predicted at %.2f %s (%d H) has no counterpart, %s",
+			s.Label, s.ShiftPPM, orM(s.Multiplicity), s.NH, near))
+	}
+	return strings.Join(parts, "; ")
+}
+
+// regions for integral comparison (ppm, by predicted shift); common
+// practice, no source.
+var regions = []struct {
+	name   string
+	lo, hi float64
+}{
+	{"aliphatic region (below 3 ppm)", -1, 3},
+	{"region 3–6.3 ppm (O/N–CH, alkene)", 3, 6.3},
+	{"aromatic region (6.3–9 ppm)", 6.3, 9},
+	{"region above 9 ppm (CHO, COOH)", 9, 20},
+}
+
+// regionReasons compares the measured H of the multiplets given to the
+// signals of each region with the H expected.
+func (ev *evaluation) regionReasons(ms []mplet) []string {
+	var out []string
+	for _, r := range regions {
+		exp := 0.0
+		hosts := map[int]bool{}
+		for i, s := range ev.pred.Signals {
+			if s.Exchangeable || s.ShiftPPM < r.lo || s.ShiftPPM >= r.hi {
+				continue
+			}
+			exp += float64(s.NH)
+			if j := ev.sigM[i]; j >= 0 {
+				hosts[j] = true
+			}
+		}
+		if exp == 0 {
+			continue
+		}
+		got := 0.0
+		for j := range hosts {
+			got += ms[j].area * ev.scale
+		}
+		if math.Abs(got-exp) > math.Max(0.6, 0.15*exp) {
+			out = append(out, fmt.Sprintf("integral of the %s is %.1f H, %.0f expected", r.name, got, exp))
+		}
+	}
+	return out
+}
+
+func (ev *evaluation) cautions(field float64) []string {
+	var out []string
+	var low, exact []string
+	exchMissing := 0
+	for i, s := range ev.pred.Signals {
+		if s.LowConfidence {
+			low = append(low, s.Label)
+		}
+		if s.Mode == "exact" {
+			exact = append(exact, s.Label)
+		}
+		if s.Exchangeable && ev.sigM[i] < 0 {
+			exchMissing++
+		}
+	}
+	if len(low) > 0 {
+		out = append(out, "low-confidence predictions for signals "+strings.Join(low, ", ")+": their shifts are less certain")
+	}
+	if len(exact) > 0 && field > 0 && field < 400 {
+		out = append(out, fmt.Sprintf("strongly coupled (second-order) patterns for signals %s at %.0f MHz: multiplicities may not read as first-order",
+			strings.Join(exact, ", "), field))
+	}
+	if exchMissing > 0 {
+		out = append(out, fmt.Sprintf("%d exchangeable proton signal(s) (OH, NH, COOH) not observed; this is common and not held against the structure", exchMissing))
+	}
+	out = append(out, "integrals assume full relaxation and a flat baseline")
+	return out
+}
+
+func orM(m string) string {
+	if m == "" {
+		return "m"
+	}
+	return m
+}
+
+func round2(x float64) float64 { return math.Round(x*100) / 100 }
+func round3(x float64) float64 { return math.Round(x*1000) / 1000 }
+
+// discriminating names the signals of ev that fit clearly worse than the
+// best structure: missing, far, or of the wrong multiplicity.
+func (ev *evaluation) discriminating(ms []mplet) []string {
+	var out []string
+	for i, s := range ev.pred.Signals {
+		if s.Exchangeable {
+			continue
+		}
+		j := ev.sigM[i]
+		switch {
+		case j < 0:
+			out = append(out, fmt.Sprintf("%s %.2f %s (%d H): no counterpart", s.Label, s.ShiftPPM, orM(s.Multiplicity), s.NH))
+		case ev.z[i] > poorZ:
+			out = append(out, fmt.Sprintf("%s %.2f %s: measured %.2f (%.1f SD)", s.Label, s.ShiftPPM, orM(s.Multiplicity), ms[j].ppm, ev.z[i]))
+		case ev.mc[i] >= 1.5:
+			out = append(out, fmt.Sprintf("%s %.2f: predicted %s, measured %s", s.Label, s.ShiftPPM, orM(s.Multiplicity), orM(ms[j].mult)))
+		}
+	}
+	sort.Strings(out)
+	return out
+}

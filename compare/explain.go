@@ -1,0 +1,461 @@
+package compare
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"shiftwise/predict"
+)
+
+// Artifact detection windows. A 13C satellite sits ½·¹J(CH) from its parent:
+// ¹J(CH) is 125–170 Hz for sp3/sp2 C–H and about 209 Hz for CHCl3, so the
+// window is 55–110 Hz; each satellite carries ½ × 1.1 % (13C natural
+// abundance) ≈ 0.55 % of the parent (common practice, no source; 1.1 % is
+// the textbook abundance, value from memory).
+const (
+	satMinHz, satMaxHz   = 55.0, 110.0
+	satMinRat, satMaxRat = 0.0015, 0.015
+	sidebandMaxHz        = 50.0 // spinning rates of 20–40 Hz (common practice, no source)
+	sidebandMaxRat       = 0.03
+	mirrorTolHz          = 2.0
+)
+
+// extraSpecies is a structure given by the user (impurity or internal
+// standard), predicted like the compound.
+type extraSpecies struct {
+	name   string
+	kind   string // "impurity" or "standard"
+	smiles string
+	sig    []predict.Signal
+	mw     float64
+}
+
+// explanation is what the peaks not given to the compound turn out to be.
+type explanation struct {
+	owner       []string // per ms index: "compound", "solvent", "reference", "water", species name, "artifact", ""
+	found       []Identity
+	artifacts   []Artifact
+	unexplained []Unexplained
+	total       float64 // area counted for percentages
+	unknownArea float64
+	amounts     map[string]float64 // molecules per compound molecule, per found species
+	extraHits   map[string][]extraHit
+}
+
+// extraHit is one matched signal of a user-given species.
+type extraHit struct {
+	sig predict.Signal
+	j   int // index into ms
+}
+
+// claimFixed marks the residual protio-solvent and reference (TMS) peaks:
+// narrow multiplets at the tabulated shift. They take no part in the
+// assignment. field is used for widths in Hz.
+func claimFixed(ms []mplet, solv SolventInfo, solvOK bool) []string {
+	owner := make([]string, len(ms))
+	for j, m := range ms {
+		w := m.to - m.from
+		if solvOK && math.Abs(m.ppm-solv.Residual) <= 0.03 && w <= 0.08 {
+			owner[j] = "solvent"
+		}
+		if math.Abs(m.ppm) <= 0.03 && w <= 0.05 && solvOK {
+			owner[j] = "reference"
+		}
+	}
+	return owner
+}
+
+// explain labels every multiplet the compound assignment left over.
+func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, field float64,
+	solv SolventInfo, solvOK bool, extras []extraSpecies) *explanation {
+	ex := &explanation{owner: append([]string(nil), pre...), amounts: map[string]float64{}, extraHits: map[string][]extraHit{}}
+	if solvOK {
+		for j, o := range pre {
+			if o == "solvent" {
+				ex.found = append(ex.found, Identity{Name: solv.ResidualName, Kind: "solvent", PPM: []float64{ms[j].ppm},
+					Multiplets: []int{ms[j].idx}, Signals: 1, SignalsWant: 1, Source: "Gottlieb 1997 / Fulmer 2010 (value from memory)"})
+			}
+			if o == "reference" {
+				ex.found = append(ex.found, Identity{Name: "TMS (reference)", Kind: "reference", PPM: []float64{ms[j].ppm},
+					Multiplets: []int{ms[j].idx}, Signals: 1, SignalsWant: 1, Source: "reference, 0.00 ppm by definition"})
+			}
+		}
+	}
+	expectH := make([]float64, len(ms))
+	for i, j := range sigM {
+		if j < 0 {
+			continue
+		}
+		ex.owner[j] = "compound"
+		if !sig[i].Exchangeable && pre[j] == "" {
+			expectH[j] += float64(sig[i].NH)
+		}
+	}
+	ex.findArtifacts(ms, field)
+	for j, o := range ex.owner {
+		if pre[j] == "" && o != "artifact" {
+			ex.total += ms[j].area
+		}
+	}
+	for _, e := range extras {
+		ex.matchExtra(ms, e, scale)
+	}
+	if solvOK {
+		ex.matchTable(ms, solv, scale)
+	}
+	ex.listLeftovers(ms, expectH, scale, solv, solvOK)
+	return ex
+}
+
+func (ex *explanation) free(j int) bool { return ex.owner[j] == "" }
+
+// findArtifacts marks unowned small multiplets that sit as 13C satellites
+// or as mirrored spinning sidebands of a much larger multiplet.
+func (ex *explanation) findArtifacts(ms []mplet, field float64) {
+	if field <= 0 {
+		return
+	}
+	for u := range ms {
+		if !ex.free(u) {
+			continue
+		}
+		best, bestDev := -1, math.Inf(1)
+		kind := ""
+		for p := range ms {
+			if p == u || ms[p].area < 20*ms[u].area {
+				continue
+			}
+			off := math.Abs(ms[u].ppm-ms[p].ppm) * field
+			rat := ms[u].area / ms[p].area
+			if off >= satMinHz && off <= satMaxHz && rat >= satMinRat && rat <= satMaxRat {
+				if d := math.Abs(math.Log(rat / 0.0055)); d < bestDev {
+					best, bestDev, kind = p, d, "13C satellite"
+				}
+				continue
+			}
+			if off >= 5 && off < sidebandMaxHz && rat <= sidebandMaxRat && ex.hasMirror(ms, u, p, field) {
+				if d := math.Abs(math.Log(rat / 0.01)); d < bestDev {
+					best, bestDev, kind = p, d, "spinning sideband"
+				}
+			}
+		}
+		if best >= 0 {
+			ex.owner[u] = "artifact"
+			ex.artifacts = append(ex.artifacts, Artifact{PPM: ms[u].ppm, Kind: kind, ParentPPM: ms[best].ppm,
+				Percent: 100 * ms[u].area / ms[best].area, Multiplet: ms[u].idx})
+		}
+	}
+}
+
+func (ex *explanation) hasMirror(ms []mplet, u, p int, field float64) bool {
+	want := 2*ms[p].ppm - ms[u].ppm
+	for k := range ms {
+		if k != u && k != p && math.Abs(ms[k].ppm-want)*field <= mirrorTolHz &&
+			math.Abs(math.Log(ms[k].area/ms[u].area)) < math.Log(3) {
+			return true
+		}
+	}
+	return false
+}
+
+// matchExtra matches a user-given impurity or standard to free multiplets.
+func (ex *explanation) matchExtra(ms []mplet, e extraSpecies, scale float64) {
+	var free []int
+	for j := range ms {
+		if ex.free(j) {
+			free = append(free, j)
+		}
+	}
+	var sig []predict.Signal
+	for _, s := range e.sig {
+		if !s.Exchangeable {
+			sig = append(sig, s)
+		}
+	}
+	if len(sig) == 0 || len(free) == 0 {
+		return
+	}
+	cost := make([][]float64, len(sig))
+	for i, s := range sig {
+		row := make([]float64, len(free)+len(sig))
+		for c, j := range free {
+			z := shiftDistance(s.ShiftPPM, ms[j]) / signalSD(s)
+			row[c] = shiftCost(z) + 0.5*multCost(s.Multiplicity, ms[j].mult)
+		}
+		for k := range sig {
+			row[len(free)+k] = forbidden
+		}
+		row[len(free)+i] = 9 // z = 3
+		cost[i] = row
+	}
+	assign, _ := Hungarian(cost)
+	wantH, gotH, area := 0, 0, 0.0
+	id := Identity{Name: e.name, Kind: e.kind, SignalsWant: len(sig), Source: "--" + e.kind + " " + e.smiles}
+	var used []int
+	var hits []extraHit
+	for i, c := range assign {
+		wantH += sig[i].NH
+		if c >= len(free) {
+			continue
+		}
+		j := free[c]
+		gotH += sig[i].NH
+		area += ms[j].area
+		used = append(used, j)
+		hits = append(hits, extraHit{sig[i], j})
+		id.PPM = append(id.PPM, ms[j].ppm)
+		id.Multiplets = append(id.Multiplets, ms[j].idx)
+		id.Signals++
+	}
+	if 2*gotH < wantH || gotH == 0 {
+		return
+	}
+	for _, j := range used {
+		ex.owner[j] = e.name
+	}
+	id.MatchedH = float64(gotH)
+	ex.extraHits[e.name] = hits
+	if scale > 0 && e.kind == "impurity" {
+		ex.amounts[e.name] = area * scale / float64(gotH)
+	}
+	ex.found = append(ex.found, id)
+}
+
+type tableHit struct {
+	sp    Species
+	ms    []int // per species signal: multiplet or -1
+	gotH  int
+	nSig  int
+	dist  float64
+	water bool
+}
+
+// matchTable recognises table impurities among the free multiplets, whole
+// sets first (ethyl acetate's three signals before a lone singlet).
+func (ex *explanation) matchTable(ms []mplet, solv SolventInfo, scale float64) {
+	species := SpeciesFor(solv.Name)
+	for {
+		var hits []tableHit
+		for _, sp := range species {
+			if sp.Kind == "reference" || ex.amounts[sp.Name] > 0 || ex.hasFound(sp.Name) {
+				continue
+			}
+			if h, ok := ex.tryTable(ms, sp, solv.Name); ok {
+				hits = append(hits, h)
+			}
+		}
+		if len(hits) == 0 {
+			return
+		}
+		sort.Slice(hits, func(a, b int) bool {
+			if hits[a].nSig != hits[b].nSig {
+				return hits[a].nSig > hits[b].nSig
+			}
+			return hits[a].dist < hits[b].dist
+		})
+		h := hits[0]
+		// Equally good single-signal alternatives on the same multiplet.
+		var alt []string
+		for _, o := range hits[1:] {
+			if o.nSig == h.nSig && len(o.sp.Signals) == len(h.sp.Signals) && sameMultiplets(o.ms, h.ms) {
+				alt = append(alt, o.sp.Name)
+			}
+		}
+		ex.claimTable(ms, h, alt, scale)
+	}
+}
+
+func (ex *explanation) hasFound(name string) bool {
+	for _, f := range ex.found {
+		if f.Name == name {
+			return true
+		}
+	}
+	return false
+}
+
+func sameMultiplets(a, b []int) bool {
+	x, y := map[int]bool{}, map[int]bool{}
+	for _, v := range a {
+		if v >= 0 {
+			x[v] = true
+		}
+	}
+	for _, v := range b {
+		if v >= 0 {
+			y[v] = true
+		}
+	}
+	if len(x) != len(y) {
+		return false
+	}
+	for k := range x {
+		if !y[k] {
+			return false
+		}
+	}
+	return true
+}
+
+func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string) (tableHit, bool) {
+	h := tableHit{sp: sp, ms: make([]int, len(sp.Signals)), water: sp.Kind == "water"}
+	used := map[int]bool{}
+	for k, sg := range sp.Signals {
+		h.ms[k] = -1
+		want := sg.PPM[solvent]
+		best, bd := -1, math.Inf(1)
+		for j := range ms {
+			if !ex.free(j) || used[j] {
+				continue
+			}
+			d := math.Max(0, math.Abs(ms[j].ppm-want)-0.5*(ms[j].to-ms[j].from))
+			if d <= sp.Tol && d < bd {
+				best, bd = j, d
+			}
+		}
+		if best >= 0 {
+			h.ms[k] = best
+			used[best] = true
+			h.gotH += sg.H
+			h.nSig++
+			h.dist += bd
+		}
+	}
+	if h.nSig == 0 || 2*h.gotH < speciesH(sp) {
+		return h, false
+	}
+	// Per-molecule amounts of the found signals must agree within a factor
+	// of 4 (a set, not a coincidence of shifts).
+	if h.nSig > 1 {
+		lo, hi := math.Inf(1), 0.0
+		for k, j := range h.ms {
+			if j >= 0 {
+				a := ms[j].area / float64(sp.Signals[k].H)
+				lo, hi = math.Min(lo, a), math.Max(hi, a)
+			}
+		}
+		if hi > 4*lo {
+			return h, false
+		}
+	}
+	h.dist /= float64(h.nSig)
+	return h, true
+}
+
+func (ex *explanation) claimTable(ms []mplet, h tableHit, alt []string, scale float64) {
+	name := h.sp.Name
+	if len(alt) > 0 {
+		name += " (or " + strings.Join(alt, ", ") + ")"
+	}
+	id := Identity{Name: name, Kind: h.sp.Kind, SignalsWant: len(h.sp.Signals), Signals: h.nSig,
+		MatchedH: float64(h.gotH), Source: h.sp.Source}
+	area := 0.0
+	for _, j := range h.ms {
+		if j < 0 {
+			continue
+		}
+		ex.owner[j] = name
+		area += ms[j].area
+		id.PPM = append(id.PPM, ms[j].ppm)
+		id.Multiplets = append(id.Multiplets, ms[j].idx)
+	}
+	if scale > 0 && h.sp.Kind == "contaminant" {
+		ex.amounts[name] = area * scale / float64(h.gotH)
+	}
+	ex.found = append(ex.found, id)
+}
+
+// listLeftovers lists everything still unexplained: identified species
+// (as their own rows, with the likely identity), free multiplets, and the
+// excess of compound multiplets that hold clearly more H than assigned.
+func (ex *explanation) listLeftovers(ms []mplet, expectH []float64, scale float64, solv SolventInfo, solvOK bool) {
+	pct := func(a float64) float64 {
+		if ex.total <= 0 {
+			return 0
+		}
+		return 100 * a / ex.total
+	}
+	kindOf := map[string]string{}
+	for _, f := range ex.found {
+		kindOf[f.Name] = f.Kind
+	}
+	for j, m := range ms {
+		o := ex.owner[j]
+		switch o {
+		case "compound":
+			hm := m.area * scale
+			excess := hm - expectH[j]
+			if expectH[j] > 0 && excess > math.Max(0.5, 0.3*expectH[j]) {
+				a := excess / scale
+				like := likelyAt(m, solv, solvOK)
+				u := Unexplained{PPM: m.ppm, IntegralH: excess, Percent: pct(a), Likely: like, FromPPM: m.from, ToPPM: m.to,
+					Multiplicity: m.mult, Kind: "unknown", Multiplet: m.idx}
+				if like != "" {
+					u.Kind = "overlap"
+				} else {
+					ex.unknownArea += a
+				}
+				ex.unexplained = append(ex.unexplained, u)
+			}
+		case "solvent", "reference", "artifact":
+		default:
+			u := Unexplained{PPM: m.ppm, IntegralH: m.area * scale, Percent: pct(m.area), Likely: o, FromPPM: m.from, ToPPM: m.to,
+				Multiplicity: m.mult, Kind: kindOf[o], Multiplet: m.idx}
+			if o == "" {
+				u.Kind = "unknown"
+				if l := likelyAt(m, solv, solvOK); l != "" {
+					u.Likely = "possibly " + l
+				}
+				ex.unknownArea += m.area
+			}
+			ex.unexplained = append(ex.unexplained, u)
+		}
+	}
+	sort.Slice(ex.unexplained, func(a, b int) bool { return ex.unexplained[a].PPM > ex.unexplained[b].PPM })
+}
+
+// likelyAt names table species with a signal inside (or within 0.05 ppm of)
+// the multiplet.
+func likelyAt(m mplet, solv SolventInfo, solvOK bool) string {
+	if !solvOK {
+		return ""
+	}
+	var names []string
+	for _, sp := range SpeciesFor(solv.Name) {
+		if sp.Kind == "reference" {
+			continue
+		}
+		for _, sg := range sp.Signals {
+			p := sg.PPM[solv.Name]
+			if p >= m.from-0.05 && p <= m.to+0.05 {
+				names = append(names, sp.Name)
+				break
+			}
+		}
+	}
+	if len(names) > 3 {
+		names = append(names[:3], "…")
+	}
+	return strings.Join(names, " or ")
+}
+
+// molar converts the found amounts into a molar composition: compound 1
+// molecule per amounts-unit.
+func (ex *explanation) molar(compound string) (pct float64, comps []Component) {
+	sum := 1.0
+	names := make([]string, 0, len(ex.amounts))
+	for n, a := range ex.amounts {
+		sum += a
+		names = append(names, n)
+	}
+	sort.Strings(names)
+	comps = append(comps, Component{Name: compound, MolPercent: 100 / sum})
+	for _, n := range names {
+		comps = append(comps, Component{Name: n, MolPercent: 100 * ex.amounts[n] / sum})
+	}
+	return 100 / sum, comps
+}
+
+func fmtH(h float64) string { return fmt.Sprintf("%.1f H", h) }

@@ -1,0 +1,269 @@
+package compare
+
+import (
+	"math"
+	"sort"
+
+	"shiftwise/predict"
+	"shiftwise/spectrum"
+)
+
+// Assignment cost terms. Costs are dimensionless, like squared z-scores, so
+// that "missing" can be weighed against "far away". Values were tuned on the
+// synthetic reference set (see check_ref_test.go); their form is common
+// practice, no source.
+const (
+	minShiftSD      = 0.08 // ppm: floor of the shift uncertainty used in z
+	exchShiftSD     = 1.2  // ppm: exchangeable protons move with concentration and water
+	missCost        = 20   // a non-exchangeable signal left without counterpart
+	missCostExch    = 2    // an exchangeable signal not observed (broad/exchanged)
+	shareCost       = 1.0  // one more signal placed in an already used multiplet
+	multWeight      = 1.5  // weight of the multiplicity term
+	overWeight      = 4.0  // signal larger than the multiplet (log-ratio²)
+	underWeight     = 1.5  // multiplet larger than the signal (log-ratio²)
+	forbidden       = 1e6  // cost of an impossible pairing
+	solventCost     = 4    // a compound signal placed under the residual solvent peak
+	scaleIterations = 3
+)
+
+// mplet is a measured multiplet prepared for matching.
+type mplet struct {
+	idx      int // index into PeakList.Multiplets
+	ppm      float64
+	from, to float64
+	area     float64
+	mult     string
+	j        []float64
+}
+
+func prepMultiplets(pl *spectrum.PeakList) []mplet {
+	out := make([]mplet, 0, len(pl.Multiplets))
+	for i, m := range pl.Multiplets {
+		a := m.Integral
+		if a <= 0 {
+			a = m.RawArea
+		}
+		if a <= 0 || math.IsNaN(a) || math.IsInf(a, 0) {
+			continue
+		}
+		from, to := m.FromPPM, m.ToPPM
+		if from > to {
+			from, to = to, from
+		}
+		if from == 0 && to == 0 {
+			from, to = m.PPM, m.PPM
+		}
+		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: m.Multiplicity, j: m.JHz})
+	}
+	return out
+}
+
+// signalSD returns the shift uncertainty used for a signal.
+func signalSD(s predict.Signal) float64 {
+	if s.Exchangeable {
+		return math.Max(s.ShiftSD, exchShiftSD)
+	}
+	sd := math.Hypot(s.ShiftSD, 0.02)
+	if s.LowConfidence {
+		sd *= 1.5
+	}
+	return math.Max(sd, minShiftSD)
+}
+
+// shiftDistance is how far the predicted shift lies from a multiplet: the
+// distance to its centre less 40 % of its width (a wide multiplet holds
+// signals spread across it).
+func shiftDistance(pred float64, m mplet) float64 {
+	return math.Max(0, math.Abs(pred-m.ppm)-0.4*(m.to-m.from))
+}
+
+// shiftCost is z² up to z = 3, then grows linearly, so that a far but
+// otherwise fitting multiplet stays possible while "missing" wins beyond
+// about 5.7 SD.
+func shiftCost(z float64) float64 {
+	if z <= 3 {
+		return z * z
+	}
+	return 9 + 4*(z-3)
+}
+
+// intCost compares the H of a signal with the H of the multiplet (copy k:
+// the multiplet already holds k other signals).
+func intCost(nh int, hMeas float64, k int, exch bool) float64 {
+	w := 1.0
+	if exch {
+		w = 0.2
+	}
+	if k == 0 {
+		r := math.Log((hMeas + 0.25) / (float64(nh) + 0.25))
+		if r < 0 {
+			return w * overWeight * r * r
+		}
+		return w * underWeight * r * r
+	}
+	r := math.Log((float64(nh+k) + 0.25) / (hMeas + 0.25))
+	if r <= 0 {
+		return 0
+	}
+	return w * overWeight * r * r
+}
+
+// assignSignals solves the assignment of signals to multiplets (avail marks
+// the multiplets that may be used) with the scale hPerArea (0: no integral
+// term). It returns, per signal, the index into ms or -1.
+//
+// avail[j] false excludes a multiplet; penalty[j] (may be nil) is added to
+// every pairing with multiplet j (the residual solvent peak).
+func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []float64, hPerArea, field float64) []int {
+	n := len(sig)
+	out := make([]int, n)
+	if n == 0 {
+		return out
+	}
+	type col struct{ m, k int }
+	var cols []col
+	for j, m := range ms {
+		if !avail[j] {
+			continue
+		}
+		copies := 3
+		if hPerArea > 0 {
+			copies = int(m.area*hPerArea + 0.5)
+		}
+		copies = max(1, min(copies, n, 8))
+		for k := 0; k < copies; k++ {
+			cols = append(cols, col{j, k})
+		}
+	}
+	mw := multWeight
+	if field > 0 && field < 250 {
+		mw *= 0.5 // second-order distortions are common at low field
+	}
+	width := len(cols) + n
+	cost := make([][]float64, n)
+	for i, s := range sig {
+		row := make([]float64, width)
+		sd := signalSD(s)
+		pj := distinctJ(s)
+		for c, cl := range cols {
+			m := ms[cl.m]
+			z := shiftDistance(s.ShiftPPM, m) / sd
+			v := shiftCost(z) + float64(cl.k)*shareCost
+			if penalty != nil {
+				v += penalty[cl.m]
+			}
+			if !s.Exchangeable {
+				mc := multCost(s.Multiplicity, m.mult)
+				if cl.k > 0 || s.Mode == "exact" {
+					mc *= 0.3 // overlapped or strongly coupled: the shape is not its own
+				}
+				v += mw*mc + jCost(pj, m.j)
+			}
+			if hPerArea > 0 && (penalty == nil || penalty[cl.m] == 0) {
+				v += intCost(s.NH, m.area*hPerArea, cl.k, s.Exchangeable)
+			}
+			row[c] = v
+		}
+		for k := 0; k < n; k++ {
+			row[len(cols)+k] = forbidden
+		}
+		if s.Exchangeable {
+			row[len(cols)+i] = missCostExch
+		} else {
+			row[len(cols)+i] = missCost
+		}
+		cost[i] = row
+	}
+	assign, _ := Hungarian(cost)
+	for i, c := range assign {
+		if c < len(cols) {
+			out[i] = cols[c].m
+		} else {
+			out[i] = -1
+		}
+	}
+	return out
+}
+
+// fitScale returns the H per unit area as the weighted median of the ratio
+// (assigned non-exchangeable H)/(area) over the multiplets used, weighted by
+// their H: robust to one overlapped or contaminated multiplet.
+func fitScale(sig []predict.Signal, ms []mplet, sigM []int, penalty []float64) (scale, relSpread float64) {
+	hAt := map[int]float64{}
+	for i, j := range sigM {
+		if j >= 0 && !sig[i].Exchangeable && (penalty == nil || penalty[j] == 0) {
+			hAt[j] += float64(sig[i].NH)
+		}
+	}
+	type rw struct{ r, w float64 }
+	var rs []rw
+	for j, h := range hAt {
+		rs = append(rs, rw{h / ms[j].area, h})
+	}
+	if len(rs) == 0 {
+		return 0, 0
+	}
+	sort.Slice(rs, func(a, b int) bool { return rs[a].r < rs[b].r })
+	total := 0.0
+	for _, x := range rs {
+		total += x.w
+	}
+	acc := 0.0
+	for _, x := range rs {
+		acc += x.w
+		if acc >= total/2 {
+			scale = x.r
+			break
+		}
+	}
+	// Robust relative spread: weighted mean absolute log deviation.
+	dev := 0.0
+	for _, x := range rs {
+		dev += x.w * math.Abs(math.Log(x.r/scale))
+	}
+	return scale, 1.2533 * dev / total // MAD→SD factor √(π/2) for the mean absolute deviation
+}
+
+// initialScale divides the non-exchangeable H by the area of the available
+// multiplets: exact for a pure sample, a start for the iteration otherwise.
+func initialScale(sig []predict.Signal, ms []mplet, avail []bool, penalty []float64) float64 {
+	nh := 0
+	for _, s := range sig {
+		if !s.Exchangeable {
+			nh += s.NH
+		}
+	}
+	area := 0.0
+	for j, m := range ms {
+		if avail[j] && (penalty == nil || penalty[j] == 0) {
+			area += m.area
+		}
+	}
+	if area <= 0 || nh == 0 {
+		return 0
+	}
+	return float64(nh) / area
+}
+
+// matchStructure assigns the signals of one prediction and fits the scale
+// by alternating assignment and scale fitting.
+func matchStructure(sig []predict.Signal, ms []mplet, avail []bool, penalty []float64, field float64) (sigM []int, scale, spread float64) {
+	scale = initialScale(sig, ms, avail, penalty)
+	sigM = assignSignals(sig, ms, avail, penalty, scale, field)
+	for it := 0; it < scaleIterations; it++ {
+		s, sp := fitScale(sig, ms, sigM, penalty)
+		if s <= 0 {
+			break
+		}
+		converged := math.Abs(s-scale) < 1e-3*scale
+		scale, spread = s, sp
+		if converged {
+			break
+		}
+		sigM = assignSignals(sig, ms, avail, penalty, scale, field)
+	}
+	if s, sp := fitScale(sig, ms, sigM, penalty); s > 0 {
+		scale, spread = s, sp
+	}
+	return sigM, scale, spread
+}

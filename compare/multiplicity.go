@@ -1,0 +1,151 @@
+package compare
+
+import (
+	"math"
+	"sort"
+	"strings"
+
+	"shiftwise/predict"
+)
+
+// pattern is a first-order multiplicity read from a label such as "dt":
+// the multiplicity (number of lines) of each splitting. known is false for
+// "m" and unrecognised labels; broad marks "br".
+type pattern struct {
+	n     []int
+	known bool
+	broad bool
+}
+
+var multWords = map[string]int{
+	"s": 1, "d": 2, "t": 3, "q": 4, "p": 5, "quint": 5, "quin": 5, "pent": 5,
+	"sext": 6, "sxt": 6, "h": 6, "hept": 7, "sept": 7, "oct": 8, "non": 9,
+}
+
+// parsePattern reads a multiplicity label: "s", "d", "t", "q", "quint",
+// "sext", "sept", and letter strings such as "dd", "dt", "tdd"; "br s" and
+// "bs" are broad singlets; "m" (or anything else) is unknown.
+func parsePattern(label string) pattern {
+	l := strings.ToLower(strings.TrimSpace(label))
+	var p pattern
+	if strings.HasPrefix(l, "br") {
+		p.broad = true
+		l = strings.TrimSpace(strings.TrimPrefix(strings.TrimPrefix(l, "br"), "."))
+	}
+	if l == "bs" {
+		p.broad, l = true, "s"
+	}
+	if l == "" && p.broad {
+		l = "s"
+	}
+	if n, ok := multWords[l]; ok {
+		if n > 1 {
+			p.n = []int{n}
+		}
+		p.known = true
+		return p
+	}
+	for _, r := range l {
+		n, ok := multWords[string(r)]
+		if !ok || n == 1 || r == 'p' || r == 'h' {
+			return pattern{broad: p.broad}
+		}
+		p.n = append(p.n, n)
+	}
+	p.known = len(p.n) > 0
+	return p
+}
+
+// lines returns the number of lines of a first-order pattern.
+func (p pattern) lines() int {
+	n := 1
+	for _, k := range p.n {
+		n *= k
+	}
+	return n
+}
+
+// multCost scores the agreement of a predicted and a measured multiplicity:
+// 0 for the same pattern, 0.3 when one side is unknown ("m") or the line
+// counts agree (dd vs q), up to 3 for very different patterns.
+func multCost(pred, meas string) float64 {
+	a, b := parsePattern(pred), parsePattern(meas)
+	if !a.known || !b.known {
+		return 0.3
+	}
+	if equalInts(a.n, b.n) {
+		return 0
+	}
+	la, lb := a.lines(), b.lines()
+	if la == lb {
+		return 0.3
+	}
+	if b.broad && la <= 2 {
+		return 0.3 // small splittings blur into a broad line
+	}
+	c := 1.2 * math.Abs(math.Log2(float64(la)/float64(lb)))
+	if (la == 1) != (lb == 1) {
+		c += 0.8 // a singlet versus a split signal is a strong clue
+	}
+	return math.Min(3, c)
+}
+
+func equalInts(a, b []int) bool {
+	x := append([]int(nil), a...)
+	y := append([]int(nil), b...)
+	sort.Ints(x)
+	sort.Ints(y)
+	if len(x) != len(y) {
+		return false
+	}
+	for i := range x {
+		if x[i] != y[i] {
+			return false
+		}
+	}
+	return true
+}
+
+// JTolHz is the tolerance for comparing a predicted and a measured J:
+// typical couplings vary by ±1.5 Hz with substitution (common practice, no
+// source).
+const JTolHz = 1.5
+
+// distinctJ returns the predicted couplings of at least 1 Hz, merged when
+// within 0.8 Hz of each other, largest first.
+func distinctJ(s predict.Signal) []float64 {
+	var js []float64
+	for _, c := range s.Couplings {
+		if math.Abs(c.JHz) >= 1 {
+			js = append(js, math.Abs(c.JHz))
+		}
+	}
+	sort.Sort(sort.Reverse(sort.Float64Slice(js)))
+	var out []float64
+	for _, j := range js {
+		if len(out) == 0 || out[len(out)-1]-j > 0.8 {
+			out = append(out, j)
+		}
+	}
+	return out
+}
+
+// jCost compares the largest predicted couplings with the measured ones
+// (both largest first): 0 when within JTolHz, growing to 2.
+func jCost(pred []float64, meas []float64) float64 {
+	if len(pred) == 0 || len(meas) == 0 {
+		return 0
+	}
+	m := append([]float64(nil), meas...)
+	sort.Sort(sort.Reverse(sort.Float64Slice(m)))
+	n := min(len(pred), len(m))
+	sum := 0.0
+	for i := 0; i < n; i++ {
+		sum += math.Abs(pred[i] - m[i])
+	}
+	r := sum / float64(n) / JTolHz
+	if r <= 1 {
+		return 0
+	}
+	return math.Min(2, 0.5*(r-1)*(r-1)+0.3*(r-1))
+}

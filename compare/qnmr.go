@@ -1,0 +1,168 @@
+package compare
+
+import (
+	"errors"
+	"fmt"
+	"math"
+)
+
+// Default standard uncertainties for qNMR (common practice, no source): a
+// five-place analytical balance reads 0.01 mg; a certified standard's purity
+// is typically stated to ±0.1 %; integration repeatability of well-resolved
+// signals is about 0.5 % (values from memory).
+const (
+	DefaultMassUncertaintyMg = 0.01
+	DefaultPurityUncertainty = 0.1
+	MinIntegralUncertainty   = 0.005
+)
+
+// QNMRPurity applies the internal-standard qNMR equation
+//
+//	P_a = (I_a/I_std) · (N_std/N_a) · (M_a/M_std) · (m_std/m_a) · P_std
+//
+// with I the integrals, N the numbers of protons integrated, M the molar
+// masses, m the weighed masses and P_std the standard's purity (mass %).
+// It returns the analyte purity in mass % or an error for non-positive terms.
+func QNMRPurity(q QNMR) (float64, error) {
+	for _, v := range []struct {
+		name string
+		x    float64
+	}{
+		{"analyte integral", q.IntegralAnalyte}, {"standard integral", q.IntegralStandard},
+		{"analyte proton count", float64(q.NAnalyte)}, {"standard proton count", float64(q.NStandard)},
+		{"analyte molar mass", q.MAnalyte}, {"standard molar mass", q.MStandard},
+		{"sample mass", q.MassAnalyteMg}, {"standard mass", q.MassStandardMg}, {"standard purity", q.PurityStandard},
+	} {
+		if !(v.x > 0) || math.IsInf(v.x, 0) {
+			return 0, fmt.Errorf("qNMR: %s must be positive, found %g", v.name, v.x)
+		}
+	}
+	return (q.IntegralAnalyte / q.IntegralStandard) * (float64(q.NStandard) / float64(q.NAnalyte)) *
+		(q.MAnalyte / q.MStandard) * (q.MassStandardMg / q.MassAnalyteMg) * q.PurityStandard, nil
+}
+
+// QNMRUncertainty is the standard uncertainty (percentage points) of a qNMR
+// purity by first-order propagation (GUM, uncorrelated inputs) of the
+// relative uncertainties of the product:
+//
+//	(u_P/P)² = u_r(I_a)² + u_r(I_std)² + (u_m/m_a)² + (u_m/m_std)² + (u_Pstd/P_std)²
+//
+// relIa and relIstd are relative integral uncertainties, uMassMg the balance
+// uncertainty (each weighing), uPstd the standard's purity uncertainty in
+// percentage points. Molar-mass uncertainties are negligible and left out.
+func QNMRUncertainty(q QNMR, relIa, relIstd, uMassMg, uPstd float64) (float64, error) {
+	p, err := QNMRPurity(q)
+	if err != nil {
+		return 0, err
+	}
+	if relIa < 0 || relIstd < 0 || uMassMg < 0 || uPstd < 0 {
+		return 0, errors.New("qNMR: uncertainties must not be negative")
+	}
+	r2 := relIa*relIa + relIstd*relIstd +
+		sq(uMassMg/q.MassAnalyteMg) + sq(uMassMg/q.MassStandardMg) + sq(uPstd/q.PurityStandard)
+	return p * math.Sqrt(r2), nil
+}
+
+func sq(x float64) float64 { return x * x }
+
+// qnmrFor applies the qNMR equation to a check: the analyte integral is the
+// summed area of the compound's multiplets that hold only compound signals
+// (non-exchangeable, not shared with anything identified), the standard's
+// the multiplet of its chosen signal.
+func qnmrFor(st *Standard, ev *evaluation, ms []mplet, extras []extraSpecies) (*QNMR, error) {
+	var std *extraSpecies
+	for k := range extras {
+		if extras[k].kind == "standard" {
+			std = &extras[k]
+		}
+	}
+	if std == nil {
+		return nil, errors.New("qNMR: the standard's structure could not be predicted")
+	}
+	hits := ev.ex.extraHits[std.name]
+	if len(hits) == 0 {
+		return nil, fmt.Errorf("qNMR: no signal of the standard %s found in the spectrum", std.smiles)
+	}
+	best := -1
+	for k, h := range hits {
+		switch {
+		case st.SignalPPM != 0:
+			if best < 0 || math.Abs(ms[h.j].ppm-st.SignalPPM) < math.Abs(ms[hits[best].j].ppm-st.SignalPPM) {
+				best = k
+			}
+		case best < 0 || h.sig.NH > hits[best].sig.NH:
+			best = k
+		}
+	}
+	if st.SignalPPM != 0 && math.Abs(ms[hits[best].j].ppm-st.SignalPPM) > 0.1 {
+		return nil, fmt.Errorf("qNMR: no signal of the standard found near %.2f ppm", st.SignalPPM)
+	}
+	hs := hits[best]
+	ia, na, perH := analyteIntegral(ev, ms)
+	if na == 0 {
+		return nil, errors.New("qNMR: no clean compound multiplet to integrate")
+	}
+	q := QNMR{IntegralAnalyte: ia, IntegralStandard: ms[hs.j].area, NAnalyte: na, NStandard: hs.sig.NH,
+		MAnalyte: ev.pred.MolecularWeight, MStandard: std.mw, MassAnalyteMg: st.SampleMassMg,
+		MassStandardMg: st.MassMg, PurityStandard: st.PurityPct, StandardPPM: ms[hs.j].ppm}
+	p, err := QNMRPurity(q)
+	if err != nil {
+		return nil, err
+	}
+	relI := st.IntegralUncertainty
+	relA := relI
+	if relI <= 0 {
+		relI = MinIntegralUncertainty
+		relA = math.Max(MinIntegralUncertainty, perH)
+	}
+	um, up := st.MassUncertaintyMg, st.PurityUncertainty
+	if um <= 0 {
+		um = DefaultMassUncertaintyMg
+	}
+	if up <= 0 {
+		up = DefaultPurityUncertainty
+	}
+	u, err := QNMRUncertainty(q, relA, relI, um, up)
+	if err != nil {
+		return nil, err
+	}
+	q.PurityPercent, q.Uncertainty = round2(p), round2(u)
+	return &q, nil
+}
+
+// analyteIntegral sums the areas and H of the clean compound multiplets and
+// returns the relative standard error of their per-H areas.
+func analyteIntegral(ev *evaluation, ms []mplet) (area float64, nh int, relSE float64) {
+	count := map[int]int{}
+	bad := map[int]bool{}
+	for i, j := range ev.sigM {
+		if j < 0 {
+			continue
+		}
+		count[j]++
+		if ev.pred.Signals[i].Exchangeable || ev.z[i] > poorZ {
+			bad[j] = true
+		}
+	}
+	var perH []float64
+	for i, j := range ev.sigM {
+		if j < 0 || count[j] != 1 || bad[j] || ev.ex.owner[j] != "compound" {
+			continue
+		}
+		area += ms[j].area
+		nh += ev.pred.Signals[i].NH
+		perH = append(perH, ms[j].area/float64(ev.pred.Signals[i].NH))
+	}
+	if len(perH) > 1 {
+		mean, v := 0.0, 0.0
+		for _, x := range perH {
+			mean += x
+		}
+		mean /= float64(len(perH))
+		for _, x := range perH {
+			v += sq(x - mean)
+		}
+		relSE = math.Sqrt(v/float64(len(perH)-1)) / mean / math.Sqrt(float64(len(perH)))
+	}
+	return area, nh, relSE
+}
