@@ -204,6 +204,11 @@ func (br *blockReader) setTrace(xs, ys []float64, units string, unitsLine, line 
 	if err := br.shiftReference(xs); err != nil {
 		return err
 	}
+	for _, x := range xs {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return errorf(br.file, line, "X values overflow (check FIRSTX, LASTX, XFACTOR)")
+		}
+	}
 	if len(xs) > 1 && xs[0] > xs[len(xs)-1] {
 		reverseFloats(xs)
 		reverseFloats(ys)

@@ -127,7 +127,7 @@ func writeTrace(w *bufio.Writer, s *Spectrum, compressed bool) error {
 	fmt.Fprintf(w, "##FIRSTX=%s\n##LASTX=%s\n##DELTAX=%s\n##NPOINTS=%d\n##FIRSTY=%s\n",
 		fmtNum(xAt(0)), fmtNum(xAt(n-1)), fmtNum(delta), n, fmtNum(float64(ys[0])*yf))
 	fmt.Fprintf(w, "##XYDATA=(X++(Y..Y))\n")
-	xs := func(i int) string { return strconv.FormatFloat(xAt(i), 'f', -1, 64) }
+	xs := func(i int) string { return strconv.FormatFloat(xAt(i), 'g', 12, 64) }
 	if compressed {
 		writeDIFDUP(w, ys, xs)
 	} else {
