@@ -9,7 +9,8 @@ import (
 // Formula returns the molecular formula in Hill order (C, then H, then the
 // other elements alphabetically; without carbon, all alphabetically), with
 // the net charge appended ("+", "2-"). Isotope labels are counted under
-// their element; wildcard atoms are left out.
+// their element; wildcard atoms count as "*" (sorted with the symbols, as
+// RDKit writes them).
 func (m *Mol) Formula() string {
 	counts := map[string]int{}
 	charge := 0
@@ -19,9 +20,7 @@ func (m *Mol) Formula() string {
 		if h := at.HCount(); h > 0 {
 			counts["H"] += h
 		}
-		if at.Element != "*" {
-			counts[at.Element]++
-		}
+		counts[at.Element]++
 	}
 	syms := make([]string, 0, len(counts))
 	for s := range counts {

@@ -13,7 +13,10 @@ import (
 // one ring is walked directly; otherwise the SSSR is picked from Horton's
 // candidate cycles (shortest path root→x, edge x–y, shortest path y→root)
 // by Gaussian elimination over GF(2), shortest first (Horton, SIAM J.
-// Comput. 16, 358, 1987).
+// Comput. 16, 358, 1987). The set is then symmetrized: cycles that are not
+// needed for the basis but are no longer than its largest ring are added,
+// so the result does not depend on atom order (adamantane has four
+// six-rings, cubane six four-rings); this matches RDKit's ring counts.
 
 // findRings computes m.ringBond, m.rings, m.ringBonds and m.atomRings.
 func (m *Mol) findRings() {
@@ -197,7 +200,8 @@ func (h *horton) sssr(nr int) []cycle {
 	var basis [][]uint64
 	var pivots []int
 	var out []cycle
-	for _, c := range cands {
+	used := make([]bool, len(cands))
+	for ci, c := range cands {
 		v := slices.Clone(c.vec)
 		for i, b := range basis {
 			if v[pivots[i]/64]&(1<<(pivots[i]%64)) != 0 {
@@ -213,8 +217,19 @@ func (h *horton) sssr(nr int) []cycle {
 		basis = append(basis, v)
 		pivots = append(pivots, p)
 		out = append(out, c)
+		used[ci] = true
 		if len(out) == nr {
 			break
+		}
+	}
+	// Symmetrize: add the dependent cycles no longer than the largest SSSR
+	// ring, so that equivalent rings are not left out arbitrarily (the
+	// fourth six-ring of adamantane, the sixth face of cubane), as RDKit's
+	// ring information does.
+	maxLen := len(out[len(out)-1].bonds)
+	for ci, c := range cands {
+		if !used[ci] && len(c.bonds) <= maxLen {
+			out = append(out, c)
 		}
 	}
 	return out
