@@ -24,12 +24,12 @@ const corpusPath = "../testdata/smiles_corpus.tsv"
 // of TestRDKitCrossCheck -v). Each rate is the fraction of molecules that
 // agree in full on that property; a drop below the floor fails the test.
 const (
-	minParsed   = 1.0   // measured 652/652
-	minFormula  = 1.0   // measured 652/652
-	minHCount   = 1.0   // measured 652/652
-	minAromatic = 1.0   // measured 652/652
-	minRings    = 1.0   // measured 652/652
-	minSymmetry = 1.0   // measured 652/652 (RDKit ranks without chirality)
+	minParsed   = 1.0 // measured 652/652
+	minFormula  = 1.0 // measured 652/652
+	minHCount   = 1.0 // measured 652/652
+	minAromatic = 1.0 // measured 652/652
+	minRings    = 1.0 // measured 652/652
+	minSymmetry = 1.0 // measured 652/652 (RDKit ranks without chirality)
 	// RDKit's default ranking also separates atoms by CIP label and
 	// double-bond stereo (meso-tartaric acid, cis-decalin, (2E,4Z)-hexa-
 	// 2,4-diene), which SymmetryClasses deliberately does not: enantiotopic
