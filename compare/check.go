@@ -42,6 +42,9 @@ func Check(in Input, opt Options) (*Result, error) {
 		field = trace.FieldMHz
 	}
 	solvName := opt.Solvent
+	if solvName == "" {
+		solvName = pl.Solvent
+	}
 	if solvName == "" && in.Spectrum != nil {
 		solvName = in.Spectrum.Solvent
 	}
@@ -84,7 +87,8 @@ func Check(in Input, opt Options) (*Result, error) {
 
 	main := evaluateStructure(in.Smiles, pred, ms, pre, field, solv, solvOK, extras)
 	res := buildResult(main, ms, pl, trace, field, canon)
-	res.Warnings = append(append(res.Warnings, warn...), pred.Warnings...)
+	res.Warnings = append(append(append(res.Warnings, pl.Warnings...), warn...), pred.Warnings...)
+	res.Artifact = append(res.Artifact, peakArtifacts(pl)...)
 	if in.Standard != nil {
 		res.Purity.QNMR, err = qnmrFor(in.Standard, main, ms, extras)
 		if err != nil {

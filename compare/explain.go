@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"shiftwise/predict"
+	"shiftwise/spectrum"
 )
 
 // Artifact detection windows. A 13C satellite sits ½·¹J(CH) from its parent:
@@ -57,10 +58,14 @@ func claimFixed(ms []mplet, solv SolventInfo, solvOK bool) []string {
 	owner := make([]string, len(ms))
 	for j, m := range ms {
 		w := m.to - m.from
-		if solvOK && math.Abs(m.ppm-solv.Residual) <= 0.03 && w <= 0.08 {
+		switch {
+		case m.label == spectrum.LabelSolvent:
 			owner[j] = "solvent"
-		}
-		if math.Abs(m.ppm) <= 0.03 && w <= 0.05 && solvOK {
+		case m.label == spectrum.LabelTMS:
+			owner[j] = "reference"
+		case solvOK && math.Abs(m.ppm-solv.Residual) <= 0.03 && w <= 0.08:
+			owner[j] = "solvent"
+		case math.Abs(m.ppm) <= 0.03 && w <= 0.05:
 			owner[j] = "reference"
 		}
 	}
@@ -71,10 +76,14 @@ func claimFixed(ms []mplet, solv SolventInfo, solvOK bool) []string {
 func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, field float64,
 	solv SolventInfo, solvOK bool, extras []extraSpecies) *explanation {
 	ex := &explanation{owner: append([]string(nil), pre...), amounts: map[string]float64{}, extraHits: map[string][]extraHit{}}
-	if solvOK {
+	{
 		for j, o := range pre {
 			if o == "solvent" {
-				ex.found = append(ex.found, Identity{Name: solv.ResidualName, Kind: "solvent", PPM: []float64{ms[j].ppm},
+				name := solv.ResidualName
+				if !solvOK {
+					name = "residual solvent"
+				}
+				ex.found = append(ex.found, Identity{Name: name, Kind: "solvent", PPM: []float64{ms[j].ppm},
 					Multiplets: []int{ms[j].idx}, Signals: 1, SignalsWant: 1, Source: "Gottlieb 1997 / Fulmer 2010 (value from memory)"})
 			}
 			if o == "reference" {

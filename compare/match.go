@@ -34,6 +34,7 @@ type mplet struct {
 	area     float64
 	mult     string
 	j        []float64
+	label    string // processing's label: spectrum.LabelSolvent, spectrum.LabelTMS or ""
 }
 
 func prepMultiplets(pl *spectrum.PeakList) []mplet {
@@ -53,7 +54,7 @@ func prepMultiplets(pl *spectrum.PeakList) []mplet {
 		if from == 0 && to == 0 {
 			from, to = m.PPM, m.PPM
 		}
-		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: m.Multiplicity, j: m.JHz})
+		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: m.Multiplicity, j: m.JHz, label: m.Label})
 	}
 	return out
 }

@@ -1,0 +1,236 @@
+package main
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
+
+	"github.com/spf13/cobra"
+
+	"shiftwise/compare"
+)
+
+func init() { register("check", newCheckCmd) }
+
+// checkOptions holds the flags of the check command.
+type checkOptions struct {
+	smiles, spectrum, solvent string
+	field                     float64
+	candidates, impurities    []string
+	standard                  string
+	standardMass, sampleMass  float64
+	standardPurity            float64
+	standardSignal            float64
+	minSNR                    float64
+	json                      bool
+	predictor                 compare.Predictor // tests substitute hand-made predictions
+}
+
+const checkLong = `check predicts the 1H spectrum of the intended structure (--smiles), reads
+and processes the measured spectrum (JCAMP-DX or CSV), assigns every predicted
+signal to a measured multiplet, explains the other peaks (residual solvent,
+water, common contaminants from the Gottlieb 1997 / Fulmer 2010 tables, 13C
+satellites, the --impurity structures), estimates purity and gives a verdict:
+
+  consistent     the spectrum supports the structure          exit status 0
+  inconsistent   the spectrum contradicts the structure       exit status 3
+  review         a person must look (reasons are listed)      exit status 4
+  usage or input error                                        exit status 1
+
+--candidate ranks further structures (isomers, starting material, by-product)
+against the same spectrum and names the signals that tell them apart.
+
+qNMR: with --standard SMILES --standard-mass MG --sample-mass MG
+--standard-purity PCT the mass purity of the sample is computed with the
+internal-standard qNMR equation and an uncertainty estimate.
+
+Output is a table on a terminal, tab-separated lines when piped, or JSON
+(--json) with the keys verdict, score, reasons, assignments, unexplained,
+missing, purity, candidates.
+
+The automated result is advisory: release of material follows the lab's own
+procedures and qualified review.`
+
+func newCheckCmd(f *Factory) *cobra.Command {
+	o := &checkOptions{}
+	cmd := &cobra.Command{
+		Use:   "check --smiles SMILES SPECTRUM",
+		Short: "Check a measured 1H spectrum against the intended structure",
+		Long:  checkLong,
+		Args: func(cmd *cobra.Command, args []string) error {
+			if len(args) != 1 {
+				return withCode(exitError, fmt.Errorf("check: expected one spectrum file, found %d arguments", len(args)))
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, args []string) error {
+			o.spectrum = args[0]
+			return runCheck(f, o)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&o.smiles, "smiles", "", "intended structure as SMILES (required)")
+	fl.StringVar(&o.solvent, "solvent", "", "deuterated solvent (default: from the file)")
+	fl.Float64Var(&o.field, "field", 0, "observe frequency in MHz (default: from the file)")
+	fl.StringArrayVar(&o.candidates, "candidate", nil, "alternative structure to rank (repeatable)")
+	fl.StringArrayVar(&o.impurities, "impurity", nil, "expected impurity as SMILES: starting material, by-product (repeatable)")
+	fl.StringVar(&o.standard, "standard", "", "internal standard for qNMR, as SMILES")
+	fl.Float64Var(&o.standardMass, "standard-mass", 0, "mass of internal standard weighed, mg")
+	fl.Float64Var(&o.sampleMass, "sample-mass", 0, "mass of sample weighed, mg")
+	fl.Float64Var(&o.standardPurity, "standard-purity", 0, "purity of the internal standard, mass %")
+	fl.Float64Var(&o.standardSignal, "standard-signal", 0, "shift of the standard's signal to integrate, ppm (default: its largest)")
+	fl.Float64Var(&o.minSNR, "min-snr", 0, "peak-picking threshold in noise SDs (default: processing's)")
+	fl.BoolVar(&o.json, "json", false, "print the result as JSON")
+	cmd.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return withCode(exitError, err) })
+	return cmd
+}
+
+func (o *checkOptions) validate() error {
+	if strings.TrimSpace(o.smiles) == "" {
+		return errors.New("check: --smiles is required")
+	}
+	if o.field < 0 {
+		return fmt.Errorf("check: --field must be positive, found %g", o.field)
+	}
+	q := o.standard != "" || o.standardMass != 0 || o.sampleMass != 0 || o.standardPurity != 0
+	if q {
+		if o.standard == "" || !(o.standardMass > 0) || !(o.sampleMass > 0) || !(o.standardPurity > 0) || o.standardPurity > 100 {
+			return errors.New("check: qNMR needs --standard SMILES, --standard-mass MG > 0, --sample-mass MG > 0 and --standard-purity PCT in (0, 100]")
+		}
+	}
+	return nil
+}
+
+func runCheck(f *Factory, o *checkOptions) error {
+	if err := o.validate(); err != nil {
+		return withCode(exitError, err)
+	}
+	in := compare.Input{Smiles: o.smiles, SpectrumPath: o.spectrum, Candidates: o.candidates, Impurities: o.impurities}
+	if o.standard != "" {
+		in.Standard = &compare.Standard{Smiles: o.standard, MassMg: o.standardMass, SampleMassMg: o.sampleMass,
+			PurityPct: o.standardPurity, SignalPPM: o.standardSignal}
+	}
+	res, err := compare.Check(in, compare.Options{FieldMHz: o.field, Solvent: o.solvent, MinSNR: o.minSNR, Predictor: o.predictor})
+	if err != nil {
+		return withCode(exitError, err)
+	}
+	if o.json {
+		enc := json.NewEncoder(f.Out)
+		enc.SetIndent("", "  ")
+		if err := enc.Encode(res); err != nil {
+			return withCode(exitError, err)
+		}
+	} else if f.IsTTY {
+		printCheckTable(f.Out, res)
+	} else {
+		printCheckTSV(f.Out, res)
+	}
+	switch res.Verdict {
+	case compare.Consistent:
+		return nil
+	case compare.Inconsistent:
+		return withCode(exitInconsistent, nil)
+	default:
+		return withCode(exitReview, nil)
+	}
+}
+
+func fmtPtr(p *float64, unit string) string {
+	if p == nil {
+		return "—"
+	}
+	return fmt.Sprintf("%.1f%s", *p, unit)
+}
+
+// printCheckTable writes the human view: verdict and reasons, then tables.
+func printCheckTable(w io.Writer, r *compare.Result) {
+	fmt.Fprintf(w, "Verdict: %s   score %.2f   (%s, %.0f MHz)\n", strings.ToUpper(string(r.Verdict)), r.Score, r.Solvent, r.FieldMHz)
+	for _, s := range r.Reasons {
+		fmt.Fprintf(w, "  - %s\n", s)
+	}
+	fmt.Fprintf(w, "Scores: shifts %.2f, splitting %.2f, integrals %.2f, explained %.2f\n\n",
+		r.Scores.Shifts, r.Scores.Splitting, r.Scores.Integrals, r.Scores.Explained)
+	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+	fmt.Fprintln(tw, "SIGNAL\tH\tPREDICTED\tMEASURED\tΔ ppm\tMULT (pred/meas)\tINTEGRAL H")
+	for _, a := range r.Assignments {
+		shared := ""
+		if a.Shared {
+			shared = " (shared)"
+		}
+		fmt.Fprintf(tw, "%s\t%d\t%.2f\t%.2f\t%+.2f\t%s / %s\t%.2f%s\n", a.Signal, a.NH, a.PredictedPPM, a.MeasuredPPM,
+			a.DeltaPPM, orDash(a.PredictedMultiplicity), orDash(a.Multiplicity), a.IntegralH, shared)
+	}
+	tw.Flush()
+	if len(r.Missing) > 0 {
+		fmt.Fprintf(w, "Missing signals: %s\n", strings.Join(r.Missing, ", "))
+	}
+	if len(r.Unexplained) > 0 {
+		fmt.Fprintln(w, "\nPeaks not from the compound:")
+		tw = tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+		fmt.Fprintln(tw, "PPM\tMULT\tH-EQUIV\t% OF TOTAL\tLIKELY")
+		for _, u := range r.Unexplained {
+			fmt.Fprintf(tw, "%.2f\t%s\t%.2f\t%.1f\t%s\n", u.PPM, orDash(u.Multiplicity), u.IntegralH, u.Percent, orDash(u.Likely))
+		}
+		tw.Flush()
+	}
+	fmt.Fprintf(w, "\nPurity: %s mol %% (±%s) by integrals", fmtPtr(r.Purity.MolarPercent, ""), fmtPtr(r.Purity.MolarUncertainty, ""))
+	if r.Purity.QNMRMassPercent != nil {
+		fmt.Fprintf(w, "; qNMR %s mass %% (±%s)", fmtPtr(r.Purity.QNMRMassPercent, ""), fmtPtr(r.Purity.UncertaintyPercent, ""))
+	}
+	fmt.Fprintln(w)
+	if len(r.Candidates) > 0 {
+		fmt.Fprintln(w, "\nCandidates:")
+		tw = tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+		fmt.Fprintln(tw, "RANK\tSCORE\tVERDICT\tSMILES\tDISCRIMINATING SIGNALS")
+		for _, c := range r.Candidates {
+			mark := ""
+			if c.Main {
+				mark = " (given)"
+			}
+			note := strings.Join(c.Discriminating, "; ")
+			if c.Error != "" {
+				note = c.Error
+			}
+			fmt.Fprintf(tw, "%d\t%.2f\t%s\t%s%s\t%s\n", c.Rank, c.Score, c.Verdict, c.Smiles, mark, orDash(note))
+		}
+		tw.Flush()
+	}
+	for _, c := range r.Cautions {
+		fmt.Fprintf(w, "Caution: %s\n", c)
+	}
+	for _, s := range r.Warnings {
+		fmt.Fprintf(w, "Warning: %s\n", s)
+	}
+	fmt.Fprintf(w, "\n%s\n", r.Advisory)
+}
+
+// printCheckTSV writes one record per line, first field the record kind.
+func printCheckTSV(w io.Writer, r *compare.Result) {
+	fmt.Fprintf(w, "verdict\t%s\t%.3f\n", r.Verdict, r.Score)
+	for _, s := range r.Reasons {
+		fmt.Fprintf(w, "reason\t%s\n", s)
+	}
+	for _, a := range r.Assignments {
+		fmt.Fprintf(w, "assignment\t%s\t%.3f\t%.3f\t%s\t%.2f\n", a.Signal, a.PredictedPPM, a.MeasuredPPM, a.Multiplicity, a.IntegralH)
+	}
+	for _, m := range r.Missing {
+		fmt.Fprintf(w, "missing\t%s\n", m)
+	}
+	for _, u := range r.Unexplained {
+		fmt.Fprintf(w, "unexplained\t%.3f\t%.2f\t%.2f\t%s\n", u.PPM, u.IntegralH, u.Percent, u.Likely)
+	}
+	fmt.Fprintf(w, "purity\t%s\t%s\t%s\n", fmtPtr(r.Purity.MolarPercent, ""), fmtPtr(r.Purity.QNMRMassPercent, ""), fmtPtr(r.Purity.UncertaintyPercent, ""))
+	for _, c := range r.Candidates {
+		fmt.Fprintf(w, "candidate\t%d\t%s\t%.3f\t%s\n", c.Rank, c.Smiles, c.Score, c.Verdict)
+	}
+}
+
+func orDash(s string) string {
+	if s == "" {
+		return "—"
+	}
+	return s
+}
