@@ -13,10 +13,7 @@ import (
 // one ring is walked directly; otherwise the SSSR is picked from Horton's
 // candidate cycles (shortest path root→x, edge x–y, shortest path y→root)
 // by Gaussian elimination over GF(2), shortest first (Horton, SIAM J.
-// Comput. 16, 358, 1987). The set is then symmetrized: cycles that are not
-// needed for the basis but are no longer than its largest ring are added,
-// so the result does not depend on atom order (adamantane has four
-// six-rings, cubane six four-rings); this matches RDKit's ring counts.
+// Comput. 16, 358, 1987). The set is then symmetrized (see symmetric).
 
 // findRings computes m.ringBond, m.rings, m.ringBonds and m.atomRings.
 func (m *Mol) findRings() {
@@ -222,17 +219,46 @@ func (h *horton) sssr(nr int) []cycle {
 			break
 		}
 	}
-	// Symmetrize: add the dependent cycles no longer than the largest SSSR
-	// ring, so that equivalent rings are not left out arbitrarily (the
-	// fourth six-ring of adamantane, the sixth face of cubane), as RDKit's
-	// ring information does.
-	maxLen := len(out[len(out)-1].bonds)
-	for ci, c := range cands {
-		if !used[ci] && len(c.bonds) <= maxLen {
-			out = append(out, c)
+	return append(out, h.symmetric(cands, used, out)...)
+}
+
+// symmetric returns the dependent cycles that could stand in for an SSSR
+// ring of the same size: they share a bond with it and contain every bond
+// that no other SSSR ring provides. Adding them keeps the ring set from
+// depending on atom order (adamantane has four six-rings, cubane six
+// four-rings); RDKit's symmetrized SSSR uses the same criterion.
+func (h *horton) symmetric(cands []cycle, used []bool, sssr []cycle) []cycle {
+	count := map[int]int{}
+	for _, r := range sssr {
+		for _, b := range r.bonds {
+			count[b]++
 		}
 	}
-	return out
+	var extra []cycle
+	for ci, c := range cands {
+		if used[ci] {
+			continue
+		}
+		for _, r := range sssr {
+			if len(r.bonds) == len(c.bonds) && canReplace(r, c, count) {
+				extra = append(extra, c)
+				break
+			}
+		}
+	}
+	return extra
+}
+
+func canReplace(r, c cycle, count map[int]int) bool {
+	share := false
+	for _, b := range r.bonds {
+		in := slices.Contains(c.bonds, b)
+		share = share || in
+		if !in && count[b] == 1 {
+			return false
+		}
+	}
+	return share
 }
 
 func firstBit(v []uint64) int {
