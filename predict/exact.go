@@ -1,0 +1,124 @@
+package predict
+
+import (
+	"math"
+	"sort"
+
+	"shiftwise/predict/spin"
+)
+
+// Shifts given to heteronuclear groups: irrelevant to the 1H lines but
+// required by the spin system; distinct per symmetry class so that only
+// equivalent heteroatoms merge.
+const (
+	fluorineShiftPPM   = -120
+	phosphorusShiftPPM = 0
+)
+
+// spinSystem is the spin.System of a prediction with the map back from
+// groups to environments.
+type spinSystem struct {
+	sys      spin.System
+	groupEnv []int // environment of each proton group; -1 for heteronuclei
+	rep      []int // representative proton (system.protons index) or hetero index
+}
+
+// buildSpin makes one group per magnetically equivalent environment, one
+// group per proton of an environment that is only chemically equivalent,
+// and one group per 19F/31P atom.
+func (s *system) buildSpin() spinSystem {
+	var ss spinSystem
+	for i := range s.envs {
+		e := &s.envs[i]
+		if e.env.MagneticallyEquivalent || len(e.env.Protons) == 1 {
+			ss.add(spin.Group{Name: e.env.Label, ShiftPPM: e.shift, Count: e.env.NH}, i, e.first)
+			continue
+		}
+		for k := range e.env.Protons {
+			ss.add(spin.Group{Name: e.env.Label, ShiftPPM: e.shift, Count: 1}, i, e.first+k)
+		}
+	}
+	nH := len(ss.sys.Groups)
+	for h, x := range s.hetero {
+		shift := float64(fluorineShiftPPM)
+		if x.nucleus == "31P" {
+			shift = phosphorusShiftPPM
+		}
+		ss.add(spin.Group{Name: x.label, ShiftPPM: shift + 0.5*float64(x.class), Count: 1, Nucleus: x.nucleus}, -1, h)
+	}
+	for a := 0; a < len(ss.sys.Groups); a++ {
+		for b := a + 1; b < len(ss.sys.Groups); b++ {
+			if j := s.groupJ(ss, a, b, nH); math.Abs(j) >= minSpinHz {
+				ss.sys.Couplings = append(ss.sys.Couplings, spin.Coupling{A: a, B: b, JHz: j})
+			}
+		}
+	}
+	return ss
+}
+
+func (ss *spinSystem) add(g spin.Group, env, rep int) {
+	ss.sys.Groups = append(ss.sys.Groups, g)
+	ss.groupEnv = append(ss.groupEnv, env)
+	ss.rep = append(ss.rep, rep)
+}
+
+// groupJ is the coupling between groups a < b (proton groups come first).
+func (s *system) groupJ(ss spinSystem, a, b, nH int) float64 {
+	switch {
+	case b < nH:
+		if ss.groupEnv[a] == ss.groupEnv[b] && s.envs[ss.groupEnv[a]].env.MagneticallyEquivalent {
+			return 0
+		}
+		return s.jh(ss.rep[a], ss.rep[b]).Typical
+	case a < nH:
+		return s.jx(ss.rep[a], ss.rep[b]).Typical
+	}
+	return 0 // F–F and F–P couplings do not change the 1H lines to first order
+}
+
+// exactLines simulates the spin system and merges the lines back by
+// signal. The mode of a signal is "exact" when any of its groups was
+// simulated exactly.
+func (s *system) exactLines(opt Options) ([]Line, []string, error) {
+	ss := s.buildSpin()
+	res, err := spin.Simulate(ss.sys, spin.Options{FieldMHz: opt.FieldMHz, Mode: opt.Mode})
+	if err != nil {
+		return nil, nil, err
+	}
+	modes := s.modes("first-order")
+	for g, m := range res.ModeUsed {
+		if env := ss.groupEnv[g]; env >= 0 && m == spin.Exact {
+			modes[env] = "exact"
+		}
+	}
+	type key struct {
+		env int
+		mHz int64
+	}
+	sum := map[key]float64{}
+	for _, l := range res.Lines {
+		env := ss.groupEnv[l.Group]
+		if env < 0 {
+			continue
+		}
+		sum[key{env, int64(math.Round(l.Hz * 1e3))}] += l.Intensity
+	}
+	out := make([]Line, 0, len(sum))
+	for k, in := range sum {
+		if math.Abs(in) < 1e-6 {
+			continue
+		}
+		out = append(out, Line{PPM: round(float64(k.mHz)/1e3/opt.FieldMHz, 1e-5), Intensity: round(in, 1e-6), Signal: s.envs[k.env].env.Label})
+	}
+	order := map[string]int{}
+	for i := range s.envs {
+		order[s.envs[i].env.Label] = i
+	}
+	sort.Slice(out, func(a, b int) bool {
+		if out[a].Signal != out[b].Signal {
+			return order[out[a].Signal] < order[out[b].Signal]
+		}
+		return out[a].PPM < out[b].PPM
+	})
+	return out, modes, nil
+}

@@ -1,0 +1,306 @@
+package predict
+
+import (
+	"fmt"
+	"math"
+	"slices"
+	"strconv"
+
+	"shiftwise/graph"
+	"shiftwise/jrules"
+)
+
+// envState is one observed environment with its shift and first-order
+// partner sets.
+type envState struct {
+	env      graph.Environment
+	shift    float64 // ppm
+	sd       float64 // ppm
+	low      bool
+	rules    []string
+	first    int // index of its first proton in system.protons
+	partners []partnerSet
+}
+
+// partnerSet is one entry of a signal's first-order J list: n partners
+// (protons of one environment, or heteronuclei of one symmetry class)
+// coupling with mean J.
+type partnerSet struct {
+	to         string
+	n          int
+	j          float64 // signed mean of the typical values
+	jmin, jmax float64 // range of |J|
+	nb         int
+	env        int     // partner environment, -1 for a heteronucleus
+	deltaHz    float64 // shift difference to the partner at the field (+Inf for heteronuclei)
+	hetero     bool
+}
+
+// heteroNucleus is a 19F or 31P atom.
+type heteroNucleus struct {
+	atom    int
+	nucleus string // "19F" or "31P"
+	class   int    // symmetry class
+	label   string // e.g. "F3"
+}
+
+// system holds everything the line computations need.
+type system struct {
+	m        *graph.Mol
+	envs     []envState
+	protons  []graph.Proton
+	envOf    []int
+	hetero   []heteroNucleus
+	jhh      []jrules.J // n×n, NBonds 0 where absent
+	jhx      []jrules.J // n×len(hetero)
+	warnings []string
+}
+
+// newSystem collects environments, shifts and couplings.
+func newSystem(m *graph.Mol, opt Options) *system {
+	s := &system{m: m}
+	exchanged := opt.Solvent == "D2O" || opt.Solvent == "CD3OD"
+	for _, e := range m.Environments() {
+		if e.Exchangeable && exchanged {
+			s.warnings = append(s.warnings, fmt.Sprintf(
+				"%s (%s, %d H) exchanges with the deuterium of %s and is not observed", e.Label, e.Kind, e.NH, opt.Solvent))
+			continue
+		}
+		st := envState{env: e, first: len(s.protons)}
+		st.shift, st.sd, st.low, st.rules = shiftOf(m, e, opt)
+		for _, p := range e.Protons {
+			s.protons = append(s.protons, p)
+			s.envOf = append(s.envOf, len(s.envs))
+		}
+		s.envs = append(s.envs, st)
+	}
+	s.findHetero()
+	s.couple(opt)
+	for i := range s.envs {
+		s.envs[i].partners = s.partnerSets(i, opt.FieldMHz)
+	}
+	return s
+}
+
+// shiftOf averages the increment estimates of an environment's protons:
+// the SD combines the mean variance of the estimates with their spread.
+func shiftOf(m *graph.Mol, e graph.Environment, opt Options) (ppm, sd float64, low bool, rules []string) {
+	var sum, sumSq, varSum float64
+	seen := map[string]bool{}
+	for _, p := range e.Protons {
+		est := opt.Rules.Proton(m, p, opt.Solvent)
+		sum += est.PPM
+		sumSq += est.PPM * est.PPM
+		varSum += est.SD * est.SD
+		low = low || est.LowConfidence
+		for _, r := range est.Rules {
+			if !seen[r] {
+				seen[r] = true
+				rules = append(rules, r)
+			}
+		}
+	}
+	n := float64(len(e.Protons))
+	if n == 0 {
+		return 0, 0, true, nil
+	}
+	ppm = sum / n
+	spread := math.Max(0, sumSq/n-ppm*ppm)
+	return ppm, math.Sqrt(varSum/n + spread), low, rules
+}
+
+// findHetero lists the 19F and 31P atoms.
+func (s *system) findHetero() {
+	var cls []int
+	for a := range s.m.Atoms {
+		nuc := ""
+		switch s.m.Atoms[a].Element {
+		case "F":
+			nuc = "19F"
+		case "P":
+			nuc = "31P"
+		default:
+			continue
+		}
+		if cls == nil {
+			cls = s.m.SymmetryClasses()
+		}
+		s.hetero = append(s.hetero, heteroNucleus{atom: a, nucleus: nuc, class: cls[a],
+			label: s.m.Atoms[a].Element + strconv.Itoa(a)})
+	}
+}
+
+// couple estimates every H–H coupling between protons at most three heavy
+// bonds apart, and every H–F/H–P coupling.
+func (s *system) couple(opt Options) {
+	n := len(s.protons)
+	s.jhh = make([]jrules.J, n*n)
+	near := s.nearAtoms(3)
+	for i := 0; i < n; i++ {
+		for k := i + 1; k < n; k++ {
+			p, q := s.protons[i], s.protons[k]
+			if !near[p.Atom][q.Atom] {
+				continue
+			}
+			if j, ok := jrules.BetweenIn(s.m, p, q, opt.Solvent); ok {
+				s.jhh[i*n+k], s.jhh[k*n+i] = j, j
+			}
+		}
+	}
+	s.jhx = make([]jrules.J, n*len(s.hetero))
+	for i, p := range s.protons {
+		for h, x := range s.hetero {
+			if j, ok := jrules.ToHetero(s.m, p, x.atom); ok {
+				s.jhx[i*len(s.hetero)+h] = j
+			}
+		}
+	}
+}
+
+// nearAtoms returns, for each hydrogen-bearing atom, the set of atoms
+// within maxDist bonds.
+func (s *system) nearAtoms(maxDist int) map[int]map[int]bool {
+	out := map[int]map[int]bool{}
+	for _, p := range s.protons {
+		if out[p.Atom] != nil {
+			continue
+		}
+		set := map[int]bool{p.Atom: true}
+		frontier := []int{p.Atom}
+		for d := 0; d < maxDist; d++ {
+			var next []int
+			for _, a := range frontier {
+				for _, b := range s.m.Neighbors(a) {
+					if !set[b] {
+						set[b] = true
+						next = append(next, b)
+					}
+				}
+			}
+			frontier = next
+		}
+		out[p.Atom] = set
+	}
+	return out
+}
+
+// jh returns the H–H coupling between proton indices i and k.
+func (s *system) jh(i, k int) jrules.J { return s.jhh[i*len(s.protons)+k] }
+
+// jx returns the coupling between proton i and heteronucleus h.
+func (s *system) jx(i, h int) jrules.J { return s.jhx[i*len(s.hetero)+h] }
+
+// partnerSets builds the first-order J list of environment e from its
+// first proton: per partner environment, the protons with |J| ≥
+// minReportHz and their mean J; per heteronuclear symmetry class likewise.
+func (s *system) partnerSets(e int, field float64) []partnerSet {
+	st := &s.envs[e]
+	rep := st.first
+	var out []partnerSet
+	for f := range s.envs {
+		if f == e {
+			continue
+		}
+		var js []jrules.J
+		for k := s.envs[f].first; k < s.envs[f].first+len(s.envs[f].env.Protons); k++ {
+			if j := s.jh(rep, k); j.NBonds > 0 && math.Abs(j.Typical) >= minReportHz {
+				js = append(js, j)
+			}
+		}
+		for _, c := range clusterJ(js) {
+			ps := meanSet(c)
+			ps.to, ps.env = s.envs[f].env.Label, f
+			ps.deltaHz = (st.shift - s.envs[f].shift) * field
+			out = append(out, ps)
+		}
+	}
+	out = append(out, s.heteroSets(rep)...)
+	slices.SortStableFunc(out, func(a, b partnerSet) int {
+		return cmpFloat(math.Abs(b.j), math.Abs(a.j))
+	})
+	return out
+}
+
+// heteroSets groups the heteronuclear couplings of proton rep by the
+// symmetry class of the heteroatom.
+func (s *system) heteroSets(rep int) []partnerSet {
+	var out []partnerSet
+	done := map[int]bool{}
+	for h, x := range s.hetero {
+		if done[x.class] {
+			continue
+		}
+		done[x.class] = true
+		var js []jrules.J
+		for h2 := h; h2 < len(s.hetero); h2++ {
+			if s.hetero[h2].class != x.class {
+				continue
+			}
+			if j := s.jx(rep, h2); j.NBonds > 0 && math.Abs(j.Typical) >= minReportHz {
+				js = append(js, j)
+			}
+		}
+		for _, c := range clusterJ(js) {
+			ps := meanSet(c)
+			ps.to, ps.env, ps.hetero = x.label, -1, true
+			ps.deltaHz = math.Inf(1)
+			out = append(out, ps)
+		}
+	}
+	return out
+}
+
+// clusterJ splits the couplings from one proton to the members of one
+// partner set into clusters of similar value (within 0.5 Hz or 15 %), so
+// that e.g. the ortho (8 Hz) and para (0.5 Hz) partners of an AA'XX'
+// proton stay separate instead of averaging into a false triplet.
+func clusterJ(js []jrules.J) [][]jrules.J {
+	slices.SortStableFunc(js, func(a, b jrules.J) int {
+		return cmpFloat(math.Abs(b.Typical), math.Abs(a.Typical))
+	})
+	var out [][]jrules.J
+	for _, j := range js {
+		if n := len(out); n > 0 {
+			ref := math.Abs(out[n-1][0].Typical)
+			if ref-math.Abs(j.Typical) <= math.Max(0.5, 0.15*ref) {
+				out[n-1] = append(out[n-1], j)
+				continue
+			}
+		}
+		out = append(out, []jrules.J{j})
+	}
+	return out
+}
+
+// meanSet averages a list of couplings into one partner set.
+func meanSet(js []jrules.J) partnerSet {
+	ps := partnerSet{n: len(js), nb: js[0].NBonds, jmin: math.Inf(1), jmax: math.Inf(-1)}
+	for _, j := range js {
+		ps.j += j.Typical
+		ps.jmin = math.Min(ps.jmin, absMin(j))
+		ps.jmax = math.Max(ps.jmax, absMax(j))
+		ps.nb = min(ps.nb, j.NBonds)
+	}
+	ps.j /= float64(len(js))
+	return ps
+}
+
+// absMin and absMax give the range of |J| covered by [Min, Max].
+func absMin(j jrules.J) float64 {
+	if j.Min <= 0 && j.Max >= 0 {
+		return 0
+	}
+	return math.Min(math.Abs(j.Min), math.Abs(j.Max))
+}
+
+func absMax(j jrules.J) float64 { return math.Max(math.Abs(j.Min), math.Abs(j.Max)) }
+
+func cmpFloat(a, b float64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}
