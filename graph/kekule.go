@@ -89,20 +89,24 @@ func (m *Mol) kekulize() *AtomError {
 	return nil
 }
 
-// kekuleErr explains a failed kekulization, pointing at a pyrrole-type
-// nitrogen written without its hydrogen when there is one.
+// kekuleErr explains a failed kekulization at the first atom of the ring
+// system that could not be kekulized, or at a pyrrole-type nitrogen written
+// without its hydrogen when the system has one (the usual mistake).
 func (m *Mol) kekuleErr(a int, nodes, match []int) *AtomError {
-	for i, n := range nodes {
+	first := a
+	for _, n := range nodes {
+		if !m.sameSystem(n, a) {
+			continue
+		}
+		first = min(first, n)
 		at := &m.Atoms[n]
-		if at.Element == "N" && at.Charge == 0 && at.HCount() == 0 && m.Degree(n) == 2 &&
-			m.sameSystem(n, a) {
-			_ = i
+		if at.Element == "N" && at.Charge == 0 && at.HCount() == 0 && m.Degree(n) == 2 {
 			return m.atomErr(n, "cannot kekulize aromatic system: no alternating single and double bonds fit (did you mean [nH]?)")
 		}
 	}
-	return m.atomErr(a, fmt.Sprintf(
-		"cannot kekulize aromatic system: no double bond left for aromatic %s (check the ring size and the hydrogens written in brackets)",
-		lowerSym(m.Atoms[a].Element)))
+	return m.atomErr(first, fmt.Sprintf(
+		"cannot kekulize aromatic system: no alternating single and double bonds fit the ring system starting at this %s (check the ring size and the hydrogens written in brackets)",
+		lowerSym(m.Atoms[first].Element)))
 }
 
 // sameSystem reports whether a and b share a ring system.

@@ -39,6 +39,9 @@ func valences(z, charge int) []int {
 	if g == 0 {
 		return nil
 	}
+	if g == 18 {
+		return nil // noble-gas compounds: no rule
+	}
 	if g == 1 {
 		if charge == 0 {
 			return []int{1}
@@ -150,14 +153,22 @@ func (m *Mol) assignAtom(a int) *AtomError {
 		}
 		return nil
 	}
-	for _, v := range vs {
+	for i, v := range vs {
 		if v >= bs {
+			if i > 0 && v != bs && fillsFirstOnly(z, at.Charge) {
+				break
+			}
 			at.ImplicitH = v - bs
 			return nil
 		}
 	}
 	return m.valenceErr(a, bs)
 }
+
+// fillsFirstOnly reports elements whose higher valences are accepted only
+// when written out in full (Cl and Br: OCl(=O)(=O)=O is perchloric acid,
+// but C=Cl is an error rather than C=[ClH]), as RDKit does.
+func fillsFirstOnly(z, charge int) bool { return charge == 0 && (z == 17 || z == 35) }
 
 // assignAromatic handles an atom written aromatic: it takes a double bond
 // when its first normal valence leaves room for one (c, n, [nH+], [o+]),

@@ -68,6 +68,9 @@ func (p *parser) parseBracket(lit string, pos int) (graph.Atom, bool) {
 	}
 	b.chiral(&a)
 	if b.peek() == 'H' {
+		if a.Element == "H" {
+			b.errorf("a hydrogen atom cannot carry a hydrogen count (write H2 as [H][H])")
+		}
 		b.i++
 		a.ImplicitH = 1
 		if n, ok := b.digits(1); ok {
@@ -156,10 +159,12 @@ func (b *bracketScanner) chiral(a *graph.Atom) {
 		return // e.g. [C@H]: '@' followed by the H count
 	}
 	b.i += 2
+	at := b.i
 	n, ok := b.digits(2)
 	if !ok || n < 1 || n > lim {
-		b.i = start + 3
+		b.i = at
 		b.errorf("expected a number 1–%d after '@%s', found %s", lim, class, b.found())
+		b.digits(2)
 		a.Chiral = graph.ChiralNone
 		return
 	}

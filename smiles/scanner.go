@@ -145,7 +145,7 @@ func (s *scanner) scanIllegal() (int, token, string) {
 		for s.off < len(s.src) && isSpace(s.src[s.off]) {
 			s.off++
 		}
-		if s.off < len(s.src) {
+		if pos > 0 && s.off < len(s.src) {
 			s.error(pos, "unexpected space (a SMILES string cannot contain spaces)")
 		}
 		return pos, tILLEGAL, s.src[pos:s.off]
