@@ -182,8 +182,9 @@ type xyDecoder struct {
 	file    string
 	ys      []float64 // raw ordinates, before YFACTOR
 	marks   []lineMark
-	maxN    int  // refuse to hold more points than this
-	prevDIF bool // previous line ended in DIF form: this line repeats its last Y
+	maxN    int    // refuse to hold more points than this
+	limit   string // what maxN stands for, for messages
+	prevDIF bool   // previous line ended in DIF form: this line repeats its last Y
 }
 
 // lineMark records the abscissa written at the start of a line and the
@@ -270,7 +271,7 @@ func (d *xyDecoder) decodeLine(num int, text []byte) error {
 // push appends one value, refusing to grow beyond maxN.
 func (d *xyDecoder) push(num int, v float64) error {
 	if len(d.ys) >= d.maxN {
-		return errorf(d.file, num, "more than %d data points", d.maxN)
+		return d.limitError(num)
 	}
 	d.ys = append(d.ys, v)
 	return nil
@@ -279,7 +280,7 @@ func (d *xyDecoder) push(num int, v float64) error {
 // dup repeats the previous token extra more times.
 func (d *xyDecoder) dup(num int, extra int64, last *float64, dif float64, kind tokKind) error {
 	if extra > int64(d.maxN-len(d.ys)) {
-		return errorf(d.file, num, "DUP count makes more than %d data points", d.maxN)
+		return d.limitError(num)
 	}
 	for i := int64(0); i < extra; i++ {
 		if kind == tokDif {
@@ -288,6 +289,14 @@ func (d *xyDecoder) dup(num int, extra int64, last *float64, dif float64, kind t
 		d.ys = append(d.ys, *last)
 	}
 	return nil
+}
+
+// limitError reports data beyond maxN.
+func (d *xyDecoder) limitError(num int) error {
+	if d.limit != "" {
+		return errorf(d.file, num, "more data points than %s", d.limit)
+	}
+	return errorf(d.file, num, "more than %d data points", d.maxN)
 }
 
 // sameValue compares a Y-check value with the value it repeats.

@@ -31,7 +31,34 @@
 //   - several blocks and LINK files: [ReadJCAMPAll] returns every spectrum,
 //     [ReadJCAMP] picks the 1H trace.
 //
-// Time-domain (FID) and multidimensional data are refused with an error.
-// No reader allocates from what a header claims: slices grow with the data
-// actually read, so a file claiming 10^12 points costs nothing.
+// Time-domain (FID) and multidimensional data are refused with an error
+// ("time-domain data is not supported yet"). A file in HZ without an
+// observe frequency (e.g. a bare export) is refused unless the caller gives
+// the field with [ReadFileWith] and ReadOptions.FieldMHz. No reader
+// allocates from what a header claims: slices grow with the data actually
+// read (preallocation is capped at 65,536 points and a table at 4,194,304),
+// so a file claiming 10^12 points costs nothing.
+//
+// Tolerated inconsistencies (a line whose X disagrees with FIRSTX and
+// DELTAX by more than one point spacing, a DELTAX that disagrees with
+// FIRSTX, LASTX and NPOINTS) are listed in Spectrum.Warnings; a wrong point
+// count, a failed DIF Y-check or a bad character is an error.
+//
+// # CSV
+//
+// [ReadCSV] reads a trace (ppm, intensity) or a peak list (ppm[,
+// intensity][, width in Hz]). Comment lines start with '#'; the separator
+// is tab, ';' (which allows a decimal comma), ',' or blanks; an optional
+// header may name and reorder the columns. Two columns with at least 32
+// rows of (nearly) equal ppm steps are a trace, a row that breaks such a
+// spacing is an error with its line, and anything else is a peak list;
+// ReadOptions.CSV forces either reading.
+//
+// # Writing
+//
+// [WriteJCAMP] writes JCAMP-DX 5.01 NMR SPECTRUM files, XYDATA in AFFN or
+// DIFDUP with Y-checks (X in HZ when the field is known, else PPM; Y as
+// integers scaled so that the largest magnitude is 10^9), or a PEAK TABLE
+// for a peak list. [WriteCSV] writes the forms ReadCSV reads. Both round-trip
+// through the readers.
 package spectrum

@@ -107,11 +107,11 @@ func (br *blockReader) pickPage(v ntVars) (*ntPage, int, int, error) {
 		if err != nil {
 			return nil, 0, 0, err
 		}
-		real := strings.Contains(strings.ToUpper(listAt(v.names, y)), "REAL") || strings.EqualFold(listAt(v.symbols, y), "R")
-		if pick == nil || real {
+		isReal := strings.Contains(strings.ToUpper(listAt(v.names, y)), "REAL") || strings.EqualFold(listAt(v.symbols, y), "R")
+		if pick == nil || isReal {
 			pick, xs, ys = p, x, y
 		}
-		if real {
+		if isReal {
 			break
 		}
 	}
@@ -161,7 +161,7 @@ func tableSymbols(file string, dt *ldr, symbols []string) (int, int, error) {
 // FACTOR, VAR_DIM and UNITS of its two variables.
 func (br *blockReader) decodePage(v ntVars, pg *ntPage, x, y int) error {
 	dt := pg.find("DATATABLE")
-	p := xyParams{xFactor: 1, yFactor: 1, nPoints: -1, table: dt}
+	p := xyParams{xFactor: 1, yFactor: 1, nPoints: -1, table: dt, countLabel: "VAR_DIM"}
 	line := br.b.find("NTUPLES").line
 	num := func(list []string, i int, what string) (float64, bool, error) {
 		s := listAt(list, i)
@@ -202,6 +202,7 @@ func (br *blockReader) decodePage(v ntVars, pg *ntPage, x, y int) error {
 			return errorf(br.file, r.line, "##NPOINTS: expected a number, found %q", clip(r.value))
 		}
 		ok = true
+		p.countLabel = "NPOINTS"
 	}
 	if ok {
 		if dim < 0 || dim != math.Trunc(dim) {
@@ -209,6 +210,9 @@ func (br *blockReader) decodePage(v ntVars, pg *ntPage, x, y int) error {
 		}
 		p.nPoints = int(math.Min(dim, math.MaxInt32*2))
 		p.nPointsLine = line
+		if r := br.b.find("VARDIM"); r != nil && p.countLabel == "VAR_DIM" {
+			p.nPointsLine = r.line
+		}
 	}
 	p.units, p.unitsLine = listAt(v.units, x), line
 	if r := br.b.find("UNITS"); r != nil {

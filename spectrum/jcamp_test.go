@@ -385,3 +385,42 @@ func TestPeakTableAndXYPoints(t *testing.T) {
 		t.Errorf("ReadJCAMP picked %+v, %v", s, err)
 	}
 }
+
+// ntuplesSrc builds an NTUPLES block whose imaginary page comes first.
+func ntuplesSrc(kind, dim, units string) string {
+	return "##TITLE=n\n##JCAMP-DX=5.01\n##.OBSERVE FREQUENCY=100\n##NTUPLES=" + kind + "\n" +
+		"##VAR_NAME=FREQUENCY, SPECTRUM/REAL, SPECTRUM/IMAG, PAGE NUMBER\n##SYMBOL=X, R, I, N\n" +
+		"##VAR_DIM=" + dim + "\n##UNITS=" + units + ", ARBITRARY UNITS, ARBITRARY UNITS\n" +
+		"##FIRST=300, 1, 9\n##LAST=100, 3, 7\n##FACTOR=1, 2, 1, 1\n" +
+		"##PAGE=N=2\n##DATA TABLE=(X++(I..I)), XYDATA\n300 I8j\n200 H8j\n100 G8\n" +
+		"##PAGE=N=1\n##DATA TABLE=(X++(R..R)), XYDATA\n300 AJ\n200 BJ\n100 C\n" +
+		"##END NTUPLES=" + kind + "\n##END=\n"
+}
+
+// TestNTuples: the real page is chosen whatever the page order, scaled by
+// its FACTOR (Davies & Lancashire 1993 NTUPLES layout).
+func TestNTuples(t *testing.T) {
+	t.Parallel()
+	s, err := ReadJCAMP(strings.NewReader(ntuplesSrc("NMR SPECTRUM", "3, 3, 3, 2", "HZ")), "nt.jdx")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !equalFloats(s.PPM, []float64{1, 2, 3}) || !equalFloats(s.Y, []float64{6, 4, 2}) {
+		t.Errorf("ppm %v y %v", s.PPM, s.Y)
+	}
+	for _, tc := range []struct {
+		src  string
+		line int
+		msg  string
+	}{
+		{ntuplesSrc("NMR FID", "3, 3, 3, 2", "TIME"), 4, "time-domain data is not supported yet"},
+		{ntuplesSrc("NMR SPECTRUM", "3, 3, 3, 2", "SECONDS"), 8, "time-domain data is not supported yet"},
+		{ntuplesSrc("NMR SPECTRUM", "4, 4, 4, 2", "HZ"), 21, "##VAR_DIM=4 (line 7) but the data hold 3 points"},
+	} {
+		_, err := ReadJCAMP(strings.NewReader(tc.src), "nt.jdx")
+		var pe *ParseError
+		if !errors.As(err, &pe) || pe.Line != tc.line || !strings.Contains(pe.Msg, tc.msg) {
+			t.Errorf("error %v, want line %d with %q", err, tc.line, tc.msg)
+		}
+	}
+}

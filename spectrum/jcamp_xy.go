@@ -1,6 +1,7 @@
 package spectrum
 
 import (
+	"fmt"
 	"math"
 	"sort"
 	"strings"
@@ -15,9 +16,18 @@ type xyParams struct {
 	xFactor, yFactor        float64
 	nPoints                 int // -1 when unknown
 	nPointsLine             int
+	countLabel              string // "NPOINTS" or "VAR_DIM", for messages
 	units                   string
 	unitsLine               int
 	table                   *ldr // the ##XYDATA= or ##DATA TABLE= record
+}
+
+// count names the record that gave nPoints.
+func (p *xyParams) count() string {
+	if p.countLabel == "" {
+		return "NPOINTS"
+	}
+	return p.countLabel
 }
 
 // xydata reads a ##XYDATA=(X++(Y..Y)) block.
@@ -91,13 +101,11 @@ func (br *blockReader) decodeTrace(p xyParams) error {
 	d := xyDecoder{file: br.file, maxN: maxPoints}
 	if p.nPoints >= 0 && p.nPoints < d.maxN {
 		d.maxN = p.nPoints
+		d.limit = fmt.Sprintf("##%s=%d", p.count(), p.nPoints)
 	}
 	d.ys = make([]float64, 0, min(max(p.nPoints, 0), maxPrealloc))
 	for _, l := range p.table.more {
 		if err := d.decodeLine(l.num, l.text); err != nil {
-			if p.nPoints >= 0 && len(d.ys) >= p.nPoints && strings.Contains(err.Error(), "more than") {
-				return errorf(br.file, l.num, "more data points than ##NPOINTS=%d", p.nPoints)
-			}
 			return err
 		}
 	}
@@ -106,8 +114,8 @@ func (br *blockReader) decodeTrace(p xyParams) error {
 		return errorf(br.file, p.table.line, "##%s= holds no data points", p.table.label)
 	}
 	if p.nPoints >= 0 && n != p.nPoints {
-		return errorf(br.file, p.table.lastLine(), "##NPOINTS=%d (line %d) but the data hold %d points (file truncated?)",
-			p.nPoints, p.nPointsLine, n)
+		return errorf(br.file, p.table.lastLine(), "##%s=%d (line %d) but the data hold %d points (file truncated?)",
+			p.count(), p.nPoints, p.nPointsLine, n)
 	}
 	xs, err := br.abscissa(p, d.marks, n)
 	if err != nil {
