@@ -92,6 +92,11 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 		if hostN[j] > 1 || s.Mode == "exact" {
 			mc *= 0.3
 		}
+		if hostN[j] > 1 && cleanPattern(m.mult) {
+			// Several signals in one clean first-order pattern (s, d, t, q):
+			// possible only by accidental equivalence.
+			mc += sharedCleanCost
+		}
 		ev.mc[i] = mc
 		share := m.area * ev.scale
 		if hostExp[j] > 0 && !s.Exchangeable {
@@ -299,6 +304,16 @@ func (ev *evaluation) cautions(field float64) []string {
 	}
 	out = append(out, "integrals assume full relaxation and a flat baseline")
 	return out
+}
+
+// sharedCleanCost is added to the splitting cost of a signal that shares a
+// clean first-order multiplet with other signals (common practice, no
+// source: tuned on the reference set).
+const sharedCleanCost = 0.8
+
+func cleanPattern(m string) bool {
+	p := parsePattern(m)
+	return p.known && !p.broad && len(p.n) <= 1
 }
 
 func orM(m string) string {

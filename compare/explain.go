@@ -233,12 +233,14 @@ func (ex *explanation) matchExtra(ms []mplet, e extraSpecies, scale float64) {
 }
 
 type tableHit struct {
-	sp    Species
-	ms    []int // per species signal: multiplet or -1
-	gotH  int
-	nSig  int
-	dist  float64
-	water bool
+	sp      Species
+	ms      []int // per species signal: multiplet or -1
+	gotH    int
+	nSig    int
+	hidden  int // signals not found free but lying inside a compound multiplet
+	hiddenH int
+	dist    float64
+	water   bool
 }
 
 // matchTable recognises table impurities among the free multiplets, whole
@@ -259,6 +261,9 @@ func (ex *explanation) matchTable(ms []mplet, solv SolventInfo, scale float64) {
 			return
 		}
 		sort.Slice(hits, func(a, b int) bool {
+			if na, nb := hits[a].nSig+hits[a].hidden, hits[b].nSig+hits[b].hidden; na != nb {
+				return na > nb
+			}
 			if hits[a].nSig != hits[b].nSig {
 				return hits[a].nSig > hits[b].nSig
 			}
@@ -268,7 +273,7 @@ func (ex *explanation) matchTable(ms []mplet, solv SolventInfo, scale float64) {
 		// Equally good single-signal alternatives on the same multiplet.
 		var alt []string
 		for _, o := range hits[1:] {
-			if o.nSig == h.nSig && len(o.sp.Signals) == len(h.sp.Signals) && sameMultiplets(o.ms, h.ms) {
+			if o.nSig == h.nSig && o.hidden == h.hidden && sameMultiplets(o.ms, h.ms) {
 				alt = append(alt, o.sp.Name)
 			}
 		}
@@ -330,9 +335,17 @@ func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string) (tableHi
 			h.gotH += sg.H
 			h.nSig++
 			h.dist += bd
+			continue
+		}
+		for j := range ms {
+			if ex.owner[j] == "compound" && want >= ms[j].from-0.01 && want <= ms[j].to+0.01 {
+				h.hidden++
+				h.hiddenH += sg.H
+				break
+			}
 		}
 	}
-	if h.nSig == 0 || 2*h.gotH < speciesH(sp) {
+	if h.nSig == 0 || 2*(h.gotH+h.hiddenH) < speciesH(sp) || 10*h.gotH < 3*speciesH(sp) {
 		return h, false
 	}
 	// Per-molecule amounts of the found signals must agree within a factor

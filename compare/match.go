@@ -54,9 +54,34 @@ func prepMultiplets(pl *spectrum.PeakList) []mplet {
 		if from == 0 && to == 0 {
 			from, to = m.PPM, m.PPM
 		}
-		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: m.Multiplicity, j: m.JHz, label: m.Label})
+		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: cleanMultiplicity(pl, m), j: m.JHz, label: m.Label})
 	}
 	return out
+}
+
+// cleanMultiplicity reads a multiplet labelled "m" whose peaks are one tall
+// line plus tiny bumps (below 5 % of it: noise on the line's tail) as a
+// singlet (common practice, no source).
+func cleanMultiplicity(pl *spectrum.PeakList, m spectrum.Multiplet) string {
+	if m.Multiplicity != "m" || len(m.PeakIndex) < 2 {
+		return m.Multiplicity
+	}
+	top := 0.0
+	for _, k := range m.PeakIndex {
+		if k >= 0 && k < len(pl.Peaks) {
+			top = math.Max(top, pl.Peaks[k].Intensity)
+		}
+	}
+	n := 0
+	for _, k := range m.PeakIndex {
+		if k >= 0 && k < len(pl.Peaks) && pl.Peaks[k].Intensity >= 0.05*top {
+			n++
+		}
+	}
+	if n == 1 {
+		return "s"
+	}
+	return m.Multiplicity
 }
 
 // signalSD returns the shift uncertainty used for a signal.

@@ -80,6 +80,12 @@ func multCost(pred, meas string) float64 {
 	if la == lb {
 		return 0.3
 	}
+	if subMultiset(b.n, a.n) {
+		return 0.4 // measured lacks some predicted splittings: small J unresolved
+	}
+	if subMultiset(a.n, b.n) {
+		return 0.8 // measured shows a splitting not predicted
+	}
 	if b.broad && la <= 2 {
 		return 0.3 // small splittings blur into a broad line
 	}
@@ -148,4 +154,20 @@ func jCost(pred []float64, meas []float64) float64 {
 		return 0
 	}
 	return math.Min(2, 0.5*(r-1)*(r-1)+0.3*(r-1))
+}
+
+// subMultiset reports whether every element of a occurs in b (counting
+// repeats).
+func subMultiset(a, b []int) bool {
+	left := map[int]int{}
+	for _, x := range b {
+		left[x]++
+	}
+	for _, x := range a {
+		if left[x] == 0 {
+			return false
+		}
+		left[x]--
+	}
+	return true
 }
