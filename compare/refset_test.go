@@ -28,7 +28,7 @@ import (
 // (broad, uncoupled) group; j: "a-b:Hz" between group indices.
 type refCompound struct {
 	name, smiles, wrong string
-	spins, j           string
+	spins, j            string
 	// contaminant: table species name added at contPct mol% ("" none);
 	// impurity: a starting material (SMILES) added at impPct mol% with its
 	// own spins/j.
