@@ -69,13 +69,16 @@ func (m *Mol) kekulize() *AtomError {
 		return nil
 	}
 	g := make([][]int, len(nodes))
+	flat := make([]int, 0, 3*len(nodes))
 	for i, a := range nodes {
+		start := len(flat)
 		for _, bi := range m.adj[a] {
 			b := &m.Bonds[bi]
 			if o := local[b.Other(a)]; b.Aromatic && o >= 0 {
-				g[i] = append(g[i], o)
+				flat = append(flat, o)
 			}
 		}
+		g[i] = flat[start:len(flat):len(flat)]
 	}
 	match := maxMatching(g)
 	for i, j := range match {

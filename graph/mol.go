@@ -68,7 +68,8 @@ type Mol struct {
 	Bonds  []Bond
 	Source string // the text the molecule was read from, if any
 
-	adj [][]int // bond indices per atom
+	adj     [][]int // bond indices per atom
+	adjPool []int   // backing store for adj, handed out four slots at a time
 
 	// Set by Perceive.
 	perceived bool
@@ -83,7 +84,12 @@ type Mol struct {
 // AddAtom appends an atom and returns its index.
 func (m *Mol) AddAtom(a Atom) int {
 	m.Atoms = append(m.Atoms, a)
-	m.adj = append(m.adj, nil)
+	if cap(m.adjPool)-len(m.adjPool) < 4 {
+		m.adjPool = make([]int, 0, 256)
+	}
+	n := len(m.adjPool)
+	m.adj = append(m.adj, m.adjPool[n:n:n+4])
+	m.adjPool = m.adjPool[:n+4]
 	return len(m.Atoms) - 1
 }
 
@@ -124,7 +130,7 @@ func (m *Mol) ReorderBonds(a int, order []int) {
 			panic("graph: ReorderBonds: not a permutation")
 		}
 	}
-	m.adj[a] = append(cur[:0:0], order...)
+	copy(cur, order)
 }
 
 // BondsOf returns the indices of the bonds at atom a, in the order they were

@@ -90,31 +90,33 @@ type ringSystem struct {
 
 func (m *Mol) ringSystems() []ringSystem {
 	seen := make([]bool, len(m.Atoms))
+	atomBuf := make([]int, 0, len(m.Atoms))
+	bondBuf := make([]int, 0, len(m.Bonds))
 	var out []ringSystem
 	for s := range m.Atoms {
 		if seen[s] || !m.hasRingBond(s) {
 			continue
 		}
-		var sys ringSystem
-		queue := []int{s}
+		a0, b0 := len(atomBuf), len(bondBuf)
+		atomBuf = append(atomBuf, s)
 		seen[s] = true
-		for len(queue) > 0 {
-			a := queue[0]
-			queue = queue[1:]
-			sys.atoms = append(sys.atoms, a)
+		for qi := a0; qi < len(atomBuf); qi++ {
+			a := atomBuf[qi]
 			for _, bi := range m.adj[a] {
 				if !m.ringBond[bi] {
 					continue
 				}
-				if o := m.Bonds[bi].Other(a); !seen[o] {
+				o := m.Bonds[bi].Other(a)
+				if !seen[o] {
 					seen[o] = true
-					queue = append(queue, o)
+					atomBuf = append(atomBuf, o)
 				}
-				if a < m.Bonds[bi].Other(a) {
-					sys.bonds = append(sys.bonds, bi)
+				if a < o {
+					bondBuf = append(bondBuf, bi)
 				}
 			}
 		}
+		sys := ringSystem{atoms: atomBuf[a0:len(atomBuf):len(atomBuf)], bonds: bondBuf[b0:len(bondBuf):len(bondBuf)]}
 		slices.Sort(sys.atoms)
 		slices.Sort(sys.bonds)
 		out = append(out, sys)
@@ -134,7 +136,7 @@ func (m *Mol) hasRingBond(a int) bool {
 func (m *Mol) addSystemRings(sys ringSystem) {
 	nr := len(sys.bonds) - len(sys.atoms) + 1
 	if nr == 1 {
-		atoms, bonds := m.walkCycle(sys.atoms[0])
+		atoms, bonds := m.walkCycle(sys.atoms[0], len(sys.atoms))
 		m.rings = append(m.rings, atoms)
 		m.ringBonds = append(m.ringBonds, bonds)
 		return
@@ -147,7 +149,9 @@ func (m *Mol) addSystemRings(sys ringSystem) {
 }
 
 // walkCycle follows the ring bonds of a single-ring system from start.
-func (m *Mol) walkCycle(start int) (atoms, bonds []int) {
+func (m *Mol) walkCycle(start, n int) (atoms, bonds []int) {
+	buf := make([]int, 2*n)
+	atoms, bonds = buf[:0:n], buf[n:n:2*n]
 	prevBond, a := -1, start
 	for {
 		atoms = append(atoms, a)

@@ -31,9 +31,21 @@ func pGroup(z int) (group, row int) {
 	return 0, 0
 }
 
+// Valence lists, shared: callers must not modify them.
+var (
+	val0    = []int{0}
+	val1    = []int{1}
+	val2    = []int{2}
+	val3    = []int{3}
+	val4    = []int{4}
+	val35   = []int{3, 5}
+	val246  = []int{2, 4, 6}
+	val1357 = []int{1, 3, 5, 7}
+)
+
 // valences returns the normal valences of element z with the given formal
-// charge, or nil when there is no rule (metals, noble-gas cations, charges
-// that leave the row). The list ascends.
+// charge, or nil when there is no rule (metals, noble-gas compounds,
+// charges that leave the row). The list ascends and must not be modified.
 func valences(z, charge int) []int {
 	g, row := pGroup(z)
 	if g == 0 {
@@ -44,9 +56,9 @@ func valences(z, charge int) []int {
 	}
 	if g == 1 {
 		if charge == 0 {
-			return []int{1}
+			return val1
 		}
-		return []int{0}
+		return val0
 	}
 	g -= charge
 	if g < 13 || g > 18 {
@@ -55,31 +67,31 @@ func valences(z, charge int) []int {
 	if row == 2 {
 		switch g {
 		case 13:
-			return []int{3}
+			return val3
 		case 14:
-			return []int{4}
+			return val4
 		case 15:
-			return []int{3, 5} // 5 only for nitro/N-oxide written uncharged
+			return val35 // 5 only for nitro/N-oxide written uncharged
 		case 16:
-			return []int{2}
+			return val2
 		case 17:
-			return []int{1}
+			return val1
 		}
-		return []int{0}
+		return val0
 	}
 	switch g {
 	case 13:
-		return []int{3}
+		return val3
 	case 14:
-		return []int{4}
+		return val4
 	case 15:
-		return []int{3, 5}
+		return val35
 	case 16:
-		return []int{2, 4, 6}
+		return val246
 	case 17:
-		return []int{1, 3, 5, 7}
+		return val1357
 	}
-	return []int{0}
+	return val0
 }
 
 // valenceElectrons returns the outer-shell electrons of a p-block atom after

@@ -8,7 +8,7 @@ import "shiftwise/graph"
 // digit stood), which tetrahedral marks refer to.
 func (p *parser) build() *graph.Mol {
 	fold := p.foldableH()
-	m := &graph.Mol{Source: p.src}
+	m := &graph.Mol{Source: p.src, Atoms: make([]graph.Atom, 0, len(p.atoms)), Bonds: make([]graph.Bond, 0, len(p.bonds))}
 	newIdx := make([]int, len(p.atoms))
 	for i, a := range p.atoms {
 		newIdx[i] = -1
@@ -29,11 +29,12 @@ func (p *parser) build() *graph.Mol {
 				Aromatic: b.arom, Dir: b.dir, Pos: b.pos})
 		}
 	}
+	var order []int
 	for i := range p.atoms {
-		if fold[i] || len(p.nbrs[i]) < 2 {
+		if fold[i] || len(p.nbrs[i]) < 2 || !p.needsReorder(i) {
 			continue
 		}
-		order := make([]int, 0, len(p.nbrs[i]))
+		order = order[:0]
 		for _, bi := range p.nbrs[i] {
 			if bi >= 0 && bondIdx[bi] >= 0 {
 				order = append(order, bondIdx[bi])
@@ -111,4 +112,18 @@ func (p *parser) isFoldedFrom(old int) bool {
 	}
 	a := p.atoms[o]
 	return a.Element == "H" && len(p.nbrs[o]) == 1
+}
+
+// needsReorder reports whether atom i's written neighbour order differs from
+// the order its bonds were created in (a ring bond opened here, or a folded
+// hydrogen).
+func (p *parser) needsReorder(i int) bool {
+	last := -1
+	for _, bi := range p.nbrs[i] {
+		if bi < last {
+			return true
+		}
+		last = bi
+	}
+	return false
 }

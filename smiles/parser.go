@@ -100,6 +100,7 @@ type parser struct {
 	atoms    []graph.Atom
 	hasFrom  []bool  // atom was bonded to a preceding atom when written
 	nbrs     [][]int // per atom: bond indices in written order; -1 = open ring
+	nbrPool  []int   // backing store for nbrs
 	bonds    []pbond
 	prev     int
 	bond     pendingBond
@@ -109,6 +110,10 @@ type parser struct {
 
 func (p *parser) init(src string) {
 	p.src = src
+	p.atoms = make([]graph.Atom, 0, len(src)/2+1)
+	p.bonds = make([]pbond, 0, len(src)/2+1)
+	p.nbrs = make([][]int, 0, len(src)/2+1)
+	p.hasFrom = make([]bool, 0, len(src)/2+1)
 	p.sc.init(src, p.error)
 	p.prev = -1
 	p.rings = map[int]*ringOpen{}
@@ -204,7 +209,12 @@ func organicAtom(lit string, pos int) graph.Atom {
 func (p *parser) addAtom(a graph.Atom) {
 	i := len(p.atoms)
 	p.atoms = append(p.atoms, a)
-	p.nbrs = append(p.nbrs, nil)
+	if cap(p.nbrPool)-len(p.nbrPool) < 4 {
+		p.nbrPool = make([]int, 0, 256)
+	}
+	n := len(p.nbrPool)
+	p.nbrs = append(p.nbrs, p.nbrPool[n:n:n+4])
+	p.nbrPool = p.nbrPool[:n+4]
 	p.hasFrom = append(p.hasFrom, p.prev >= 0)
 	if p.prev >= 0 {
 		p.addBond(p.prev, i, p.bond, a.Pos)
