@@ -36,7 +36,8 @@
 // observe frequency (e.g. a bare export) is refused unless the caller gives
 // the field with [ReadFileWith] and ReadOptions.FieldMHz. No reader
 // allocates from what a header claims: slices grow with the data actually
-// read (preallocation is capped at 65,536 points and a table at 4,194,304),
+// read (preallocation is capped by the data size and at 2^20 points, a
+// table at 4,194,304 points),
 // so a file claiming 10^12 points costs nothing.
 //
 // Tolerated inconsistencies (a line whose X disagrees with FIRSTX and

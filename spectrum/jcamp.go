@@ -9,10 +9,10 @@ import (
 
 // maxPoints caps how many points one table may hold (4,194,304, far above
 // any 1D 1H spectrum), whatever ##NPOINTS claims; preallocation is capped
-// lower still so that a false claim costs nothing.
+// lower still (see preallocPoints) so that a false claim costs little.
 const (
 	maxPoints   = 1 << 22
-	maxPrealloc = 1 << 16
+	maxPrealloc = 1 << 20
 )
 
 // ReadJCAMPAll reads every spectrum block of a JCAMP-DX file: XYDATA,

@@ -103,7 +103,7 @@ func (br *blockReader) decodeTrace(p xyParams) error {
 		d.maxN = p.nPoints
 		d.limit = fmt.Sprintf("##%s=%d", p.count(), p.nPoints)
 	}
-	d.ys = make([]float64, 0, min(max(p.nPoints, 0), maxPrealloc))
+	d.ys = make([]float64, 0, preallocPoints(p))
 	for _, l := range p.table.more {
 		if err := d.decodeLine(l.num, l.text); err != nil {
 			return err
@@ -125,6 +125,18 @@ func (br *blockReader) decodeTrace(p xyParams) error {
 		d.ys[i] *= p.yFactor
 	}
 	return br.setTrace(xs, d.ys, p.units, p.unitsLine, p.table.line)
+}
+
+// preallocPoints sizes the Y slice: the claimed point count, but never
+// more than four points per byte of data (a false claim then costs at most
+// 32 bytes per byte of input) nor maxPrealloc. Heavily DUP-compressed data
+// may need more; the slice then grows as values are decoded.
+func preallocPoints(p xyParams) int {
+	size := 0
+	for _, l := range p.table.more {
+		size += len(l.text)
+	}
+	return min(max(p.nPoints, 0), 4*size, maxPrealloc)
 }
 
 // abscissa computes the X of every point from FIRSTX/LASTX (or DELTAX) and
