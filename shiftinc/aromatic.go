@@ -86,7 +86,9 @@ func rotate(r []int, a int) (fw, bw []int) {
 }
 
 // matchRing scores pattern pat against tokens; -1 when it does not match.
-// The score counts exact tokens (2) and partial wildcards "X:*" (1).
+// The score counts exact tokens (3), fused atoms whose partner differs
+// ("C:c" for "C:n", 1: the nearest parent ring system) and partial
+// wildcards "X:*" (1).
 func matchRing(pat, toks []string) int {
 	if len(pat) != len(toks) {
 		return -1
@@ -95,9 +97,9 @@ func matchRing(pat, toks []string) int {
 	for i, p := range pat {
 		switch {
 		case p == toks[i]:
-			score += 2
+			score += 3
 		case p == "*":
-		case strings.HasSuffix(p, ":*") && strings.HasPrefix(toks[i], p[:len(p)-1]):
+		case len(p) > 2 && p[1] == ':' && strings.HasPrefix(toks[i], p[:2]):
 			score++
 		default:
 			return -1
@@ -141,7 +143,7 @@ func (t *Table) aromatic(v *view, c int, a *acc) {
 		switch {
 		case best != nil && bestScore >= 0:
 			a.base(best.Key, best)
-		case len(r) == 6:
+		case len(r) == 6 && !slices.ContainsFunc(tf, func(s string) bool { return s == "nH" || strings.HasPrefix(s, "c=") }):
 			t.azaFallback(v, r, c, fw, tf, a)
 		default:
 			a.base(fmt.Sprintf("%d-ring aromatic C–H, no pattern: generic", len(r)), t.row("special", "fallback-aromatic"))
@@ -157,18 +159,29 @@ func (t *Table) aromatic(v *view, c int, a *acc) {
 	t.ringSubstituents(v, r, c, fw, bw, scale, a)
 }
 
-// azaFallback handles a six-membered aromatic ring with no pattern: 7.26
-// plus the "aza" increments for each ring nitrogen.
+// azaFallback handles a six-membered aromatic ring with no pattern (and no
+// lactam-type atom): the benzene base plus the "aza" increments for each
+// ring nitrogen and the "fused" increments for each atom shared with
+// another aromatic ring.
 func (t *Table) azaFallback(v *view, r []int, c int, fw []int, toks []string, a *acc) {
 	a.base("benzene base (no ring pattern)", t.row("base", "benzene"))
-	aza := t.row("benzene", "aza")
 	for i := 1; i < len(fw); i++ {
-		if !strings.HasPrefix(toks[i], "n") {
+		key, label := "", ""
+		switch {
+		case toks[i] == "n" || toks[i] == "n+" || toks[i] == "nO":
+			key, label = "aza", "ring N"
+		case strings.Contains(toks[i], ":"):
+			key, label = "fused", "fused ring"
+		default:
+			continue
+		}
+		row := t.row("benzene", key)
+		if row == nil {
 			continue
 		}
 		d := min(i, len(fw)-i)
-		val := [...]float64{0, aza.Ortho, aza.Meta, aza.Para}[d]
-		a.add(fmt.Sprintf("ring N %s", [...]string{"", "ortho", "meta", "para"}[d]), val, aza.SD)
+		val := [...]float64{0, row.Ortho, row.Meta, row.Para}[d]
+		a.add(fmt.Sprintf("%s %s", label, [...]string{"", "ortho", "meta", "para"}[d]), val, row.SD)
 	}
 }
 

@@ -70,7 +70,11 @@ func (t *Table) proton(v *view, p graph.Proton, solvent string) Estimate {
 	sol, known := t.NormalizeSolvent(solvent)
 	if !known {
 		sol = "CDCl3"
-		a.note(fmt.Sprintf("solvent %q not recognised: CDCl3 values, +0.30 uncertainty", solvent), 0.30)
+		extra := 0.3
+		if r := t.solventRow("unknown"); r != nil {
+			extra = r.ExtraSD
+		}
+		a.note(fmt.Sprintf("solvent %q not recognised: CDCl3 values, +%.2f uncertainty", solvent, extra), extra)
 	}
 	est := Estimate{Solvent: sol}
 	if p.Atom < 0 || p.Atom >= len(v.m.Atoms) || p.Index < 0 || p.Index >= v.m.Atoms[p.Atom].HCount() {
@@ -156,6 +160,7 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 	type inc struct {
 		key      string
 		val, sd  float64
+		damp     float64
 		fallback bool
 	}
 	var alpha []inc
@@ -179,8 +184,16 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 			}
 			continue
 		}
-		r := t.lookup("alpha", v.classify(c, x))
-		alpha = append(alpha, inc{r.Key, pick(r), r.SD, r.Key == "other"})
+		keys := v.classify(c, x)
+		if keys[0] == "C=C" && t.alkeneConj(v, x, v.doubleTo(x, "C"), c) {
+			keys = append([]string{"C=C-conj"}, keys...)
+		}
+		r := t.lookup("alpha", keys)
+		damp := t.Params.AlphaDamping
+		if r.Damping != nil {
+			damp = *r.Damping
+		}
+		alpha = append(alpha, inc{r.Key, pick(r), r.SD, damp, r.Key == "other"})
 	}
 	slices.SortStableFunc(alpha, func(p, q inc) int {
 		switch {
@@ -194,9 +207,9 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 	for i, in := range alpha {
 		val := in.val
 		label := "α-" + in.key
-		if i > 0 && val > 0 && t.Params.AlphaDamping != 1 {
-			val *= t.Params.AlphaDamping
-			label += fmt.Sprintf(" (×%.2g)", t.Params.AlphaDamping)
+		if i > 0 && val > 0 && in.damp != 1 {
+			val *= in.damp
+			label += fmt.Sprintf(" (×%.2g)", in.damp)
 		}
 		a.low = a.low || in.fallback
 		a.add(label, val, in.sd)
@@ -263,9 +276,19 @@ func (t *Table) vinyl(v *view, p graph.Proton, a *acc) bool {
 func (t *Table) alkeneKeys(v *view, c, partner, from, x int) []string {
 	keys := v.classify(from, x)
 	switch keys[0] {
-	case "C=C", "COR", "COOR", "COOH", "CHO":
+	case "C=C", "COR", "COOR", "COOH", "CHO", "amine", "NR2", "NHR", "NH2", "OR", "OCH3":
+		// Donors (amine, OR) on a double bond that also carries an
+		// acceptor are push-pull systems: the donor is conjugated, so the
+		// "R conjugated" constants apply.
 		if t.alkeneConj(v, c, partner, x) {
-			keys = append([]string{keys[0] + "-conj"}, keys...)
+			k := keys[0]
+			switch k {
+			case "NR2", "NHR", "NH2":
+				k = "amine"
+			case "OCH3":
+				k = "OR"
+			}
+			keys = append([]string{k + "-conj"}, keys...)
 		}
 	}
 	if v.el(x) == "C" && !v.arom1(x) && v.m.Hybridization(x) == 3 && v.shareRing(x, c, partner) {

@@ -23,20 +23,24 @@ var embedded embed.FS
 // ring-position value. Which value fields are used depends on the section
 // (see doc.go); unused ones stay zero.
 type Row struct {
-	Key    string  `toml:"key"`
-	PPM    float64 `toml:"ppm"`   // base, ring, special, hetero rows
-	CH3    float64 `toml:"ch3"`   // alpha, beta rows
-	CH2    float64 `toml:"ch2"`   //
-	CH     float64 `toml:"ch"`    //
-	Gem    float64 `toml:"gem"`   // alkene rows (Pascual–Meier–Simon)
-	Cis    float64 `toml:"cis"`   //
-	Trans  float64 `toml:"trans"` //
-	Ortho  float64 `toml:"ortho"` // benzene rows
-	Meta   float64 `toml:"meta"`  //
-	Para   float64 `toml:"para"`  //
-	Ring   string  `toml:"ring"`  // hetero rows: ring pattern
-	SD     float64 `toml:"sd"`    // 1-sigma uncertainty of the rule
-	Source string  `toml:"source"`
+	Key   string  `toml:"key"`
+	PPM   float64 `toml:"ppm"`   // base, ring, special, hetero rows
+	CH3   float64 `toml:"ch3"`   // alpha, beta rows
+	CH2   float64 `toml:"ch2"`   //
+	CH    float64 `toml:"ch"`    //
+	Gem   float64 `toml:"gem"`   // alkene rows (Pascual–Meier–Simon)
+	Cis   float64 `toml:"cis"`   //
+	Trans float64 `toml:"trans"` //
+	Ortho float64 `toml:"ortho"` // benzene rows
+	Meta  float64 `toml:"meta"`  //
+	Para  float64 `toml:"para"`  //
+	Ring  string  `toml:"ring"`  // hetero rows: ring pattern
+	SD    float64 `toml:"sd"`    // 1-sigma uncertainty of the rule
+
+	// Damping, in alpha rows, replaces params.alpha_damping for this
+	// substituent when it is not the largest α increment on the carbon.
+	Damping *float64 `toml:"damping"`
+	Source  string   `toml:"source"`
 
 	// BySolvent gives solvent-specific values (exchangeable rows), keyed by
 	// normalised solvent name.
@@ -309,6 +313,9 @@ func (t *Table) addRow(section string, row Row) error {
 		if math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) > 30 {
 			return fail("value %g out of range", v)
 		}
+	}
+	if d := row.Damping; d != nil && (math.IsNaN(*d) || *d < 0 || *d > 1) {
+		return fail("damping %g out of range [0, 1]", *d)
 	}
 	if math.IsNaN(row.SD) || row.SD < 0 || row.SD > 10 || math.IsNaN(row.ExtraSD) || row.ExtraSD < 0 || row.ExtraSD > 10 {
 		return fail("uncertainty out of range [0, 10]")
