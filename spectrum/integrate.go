@@ -18,7 +18,9 @@ import (
 // the region is added and the area that other lines put inside it is taken
 // away, each line being A·γ·[atan((b−x₀)/γ) − atan((a−x₀)/γ)] over [a,b] for
 // height A and half width γ. The correction is exact for Lorentzian lines and
-// a small second-order term otherwise.
+// a small second-order term otherwise; real lines fall off faster than a
+// Lorentzian far out, so the correction is capped at tailCorrectionCap of the
+// region sum (it is meant for tails, not for separating overlapping signals).
 //
 // Relative integrals: the well-resolved multiplets (first-order, not the
 // solvent or the reference) are scaled so that the smallest of them is a
@@ -33,6 +35,7 @@ const (
 	integrateMarginHz     = 3.0 // smallest region margin
 	wholeTolerance        = 0.12
 	maxWholeN             = 4
+	tailCorrectionCap     = 0.15
 )
 
 // IntegralRef fixes the scale of the relative integrals: the multiplet at
@@ -72,6 +75,7 @@ func integrateTrace(gs []group, ls []line, ppm, y []float64, fieldMHz float64) {
 	for k := range gs {
 		g := &gs[k]
 		area := trapezoid(ppm, y, g.from, g.to)
+		var corr float64
 		own := make(map[int]bool, len(g.lines))
 		for _, i := range g.lines {
 			own[i] = true
@@ -83,12 +87,13 @@ func integrateTrace(gs []group, ls []line, ppm, y []float64, fieldMHz float64) {
 			}
 			inside := lorentzArea(l.height, l.ppm, gamma, g.from, g.to)
 			if own[i] {
-				area += l.height*gamma*math.Pi - inside
+				corr += l.height*gamma*math.Pi - inside
 			} else {
-				area -= inside
+				corr -= inside
 			}
 		}
-		g.raw = area
+		lim := tailCorrectionCap * math.Abs(area)
+		g.raw = area + math.Max(-lim, math.Min(lim, corr))
 	}
 }
 

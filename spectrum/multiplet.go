@@ -13,7 +13,10 @@ import (
 // nearly all 2J and 3J H–H couplings; common practice, no source), or when
 // the trace between them never falls below a quarter of the smaller peak (the
 // two lines overlap so much that no integral boundary can be drawn between
-// them), with 3σ as a floor. Peaks flagged as artifacts (13C satellites,
+// them), with 3σ as a floor — in both cases only when their heights differ by
+// less than groupMaxRatio (the outer line of a septet is 1/20 of its centre,
+// Pascal's triangle), so that small signals on the foot of a strong line
+// stay separate. Peaks flagged as artifacts (13C satellites,
 // spinning sidebands) are left out.
 //
 // First-order analysis follows Hoye, Hanson & Vyvyan 1994 (J. Org. Chem. 59,
@@ -35,6 +38,7 @@ const (
 	unitTolerance = 0.3
 	maxComponents = 256 // 8 couplings
 	maxLetters    = 4   // "dddd" is the longest name given
+	groupMaxRatio = 30  // largest height ratio of neighbours joined by distance
 )
 
 // multipletNames names a group of c equal couplings (c+1 lines of Pascal's
@@ -66,7 +70,9 @@ func groupLines(ls []line, fieldMHz, jMaxHz, sigma float64, valley func(a, b int
 			p := cur[len(cur)-1]
 			gap := (ls[i].ppm - ls[p].ppm) * fieldMHz
 			floor := math.Max(3*sigma, 0.25*math.Min(ls[i].height, ls[p].height))
-			if gap > jMaxHz && !(valley(p, i) > floor) {
+			hi, lo := math.Max(ls[i].height, ls[p].height), math.Min(ls[i].height, ls[p].height)
+			join := hi <= groupMaxRatio*lo && (gap <= jMaxHz || valley(p, i) > floor)
+			if !join {
 				out = append(out, group{lines: cur})
 				cur = nil
 			}
@@ -262,4 +268,26 @@ func nameCouplings(js []float64, tol float64) (string, []float64, bool) {
 		return "", nil, false
 	}
 	return name.String(), vals, true
+}
+
+// splitMultiplicity splits a first-order name into its groups of equal
+// couplings: "dt" → [1 2], "sept" → [6]. ok is false for "m" or an unknown
+// name.
+func splitMultiplicity(name string) ([]int, bool) {
+	var out []int
+	for name != "" {
+		found := false
+		for c := len(multipletNames) - 1; c >= 1; c-- {
+			if p := multipletNames[c]; strings.HasPrefix(name, p) {
+				out = append(out, c)
+				name = name[len(p):]
+				found = true
+				break
+			}
+		}
+		if !found {
+			return nil, false
+		}
+	}
+	return out, len(out) > 0
 }

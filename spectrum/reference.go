@@ -14,9 +14,15 @@ import (
 // only when the expected signal is found within referenceWindowPPM of its
 // tabulated place; otherwise it is left alone and a warning says so.
 //
-// Reference modes: "auto" uses TMS when a singlet sits near 0 ppm and agrees
-// with the solvent residual (when that is found too) within
-// referenceAgreePPM; otherwise the solvent residual. "tms" and "solvent"
+// Reference modes: "auto" uses TMS when its line (the tallest within
+// tmsAutoWindowPPM of 0, at least tmsMinSNR strong) is there: TMS does not
+// move with the sample. Otherwise it looks for a convincing solvent residual
+// (the line nearest its tabulated shift, with the residual's pattern or
+// needing at most referenceNearPPM): found within residualSpreadPPM of its
+// tabulated shift it confirms the file's axis (no shift: residuals move with
+// concentration and temperature); further off, the axis is moved onto it.
+// With neither the axis is kept and a warning says so. "tms" and "solvent"
+// always move the axis onto the named signal when it is found. "tms" and "solvent"
 // force one; "none" keeps the file's axis. The solvent and TMS multiplets are
 // labelled in every mode so that later stages do not take them for the
 // compound.
@@ -38,6 +44,22 @@ const (
 const (
 	referenceWindowPPM = 0.15
 	referenceAgreePPM  = 0.03
+	// referenceNearPPM: a residual candidate without the expected pattern is
+	// still trusted for a correction this small.
+	referenceNearPPM = 0.02
+	// tmsAutoWindowPPM: in auto mode, only a line this close to 0 is taken
+	// for TMS (silicone grease sits at 0.07 ppm in CDCl3; Fulmer et al. 2010,
+	// value from memory).
+	tmsAutoWindowPPM = 0.05
+	// tmsMinSNR: in auto mode a TMS line must be at least this strong (an
+	// added standard, not a trace).
+	tmsMinSNR = 20.0
+	// residualSpreadPPM: residual signals move with concentration and
+	// temperature by a few hundredths of a ppm (the caveat of Gottlieb et
+	// al. 1997 and Fulmer et al. 2010; the size is our judgement). In auto
+	// mode a residual found this close to its tabulated shift confirms the
+	// file's axis instead of moving it.
+	residualSpreadPPM = 0.04
 )
 
 // refOutcome is what referencing decided.
@@ -47,47 +69,50 @@ type refOutcome struct {
 	warnings []string
 }
 
-// findTMS returns the index of the tallest singlet multiplet within the
-// window around 0 ppm, or -1.
-func findTMS(gs []group, ls []line) int {
+// findTMS returns the index of the tallest line within the window around
+// 0 ppm, or -1.
+func findTMS(ls []line) int {
 	best, bh := -1, 0.0
-	for k, g := range gs {
-		if len(g.lines) != 1 {
-			continue
-		}
-		l := ls[g.lines[0]]
-		if math.Abs(l.ppm) <= referenceWindowPPM && l.height > bh {
-			best, bh = k, l.height
+	for i, l := range ls {
+		if l.artifact == "" && math.Abs(l.ppm) <= referenceWindowPPM && l.height > bh {
+			best, bh = i, l.height
 		}
 	}
 	return best
 }
 
-// findSolvent returns the group and observed shift of the solvent residual:
-// a group whose pattern matches the solvent's (s, t or p with J near the
-// H–D coupling) nearest the tabulated shift, else the line nearest to it.
-// k is -1 when nothing lies within the window; the group index is -1 when
-// only a line (inside a larger multiplet) was found.
-func findSolvent(gs []group, ls []line, sol Solvent, fieldMHz float64) (k int, obs float64, ok bool) {
-	best := math.Inf(1)
-	k = -1
-	for i, g := range gs {
-		d := math.Abs(g.centerPPM - sol.ResidualPPM)
-		if d > referenceWindowPPM || d >= best || !solventPattern(g, sol) {
-			continue
-		}
-		best, k, obs, ok = d, i, g.centerPPM, true
-	}
-	if ok {
-		return k, obs, true
-	}
-	for _, l := range ls {
-		d := math.Abs(l.ppm - sol.ResidualPPM)
-		if l.artifact == "" && d <= referenceWindowPPM && d < best {
-			best, obs, ok = d, l.ppm, true
+// groupOf returns the group holding line i, or -1.
+func groupOf(gs []group, i int) int {
+	for k, g := range gs {
+		for _, j := range g.lines {
+			if j == i {
+				return k
+			}
 		}
 	}
-	return -1, obs, ok
+	return -1
+}
+
+// findSolvent returns the observed shift of the solvent residual: the line
+// nearest its tabulated shift within the window (flagged lines included: a
+// weak residual beside a strong line can look like a 13C satellite), or the
+// centre of that line's multiplet when the multiplet has the residual's
+// pattern. k is that multiplet, or -1.
+func findSolvent(gs []group, ls []line, sol Solvent) (k int, obs float64, ok bool) {
+	best, li := referenceWindowPPM, -1
+	for i, l := range ls {
+		if d := math.Abs(l.ppm - sol.ResidualPPM); d <= best {
+			best, li = d, i
+		}
+	}
+	if li < 0 {
+		return -1, 0, false
+	}
+	k = groupOf(gs, li)
+	if k >= 0 && solventPattern(gs[k], sol) {
+		return k, gs[k].centerPPM, true
+	}
+	return -1, ls[li].ppm, true
 }
 
 // solventPattern reports whether g looks like the residual signal of sol.
@@ -108,11 +133,14 @@ func solventPattern(g group, sol Solvent) bool {
 
 // reference decides the axis shift and labels the solvent and TMS groups.
 func reference(gs []group, ls []line, sol Solvent, haveSol bool, mode string, fieldMHz float64) refOutcome {
-	var out refOutcome
-	tk := findTMS(gs, ls)
+	tl := findTMS(ls)
+	tk := -1
+	if tl >= 0 {
+		tk = groupOf(gs, tl)
+	}
 	sk, sobs, sok := -1, 0.0, false
 	if haveSol {
-		sk, sobs, sok = findSolvent(gs, ls, sol, fieldMHz)
+		sk, sobs, sok = findSolvent(gs, ls, sol)
 	}
 	if tk >= 0 {
 		gs[tk].label = LabelTMS
@@ -121,35 +149,57 @@ func reference(gs []group, ls []line, sol Solvent, haveSol bool, mode string, fi
 		gs[sk].label = LabelSolvent
 	}
 	tShift := 0.0
-	if tk >= 0 {
-		tShift = -gs[tk].centerPPM
+	if tl >= 0 {
+		tShift = -ls[tl].ppm
 	}
 	sShift := sol.ResidualPPM - sobs
+	// A solvent candidate is convincing when it has the residual's pattern
+	// or needs only a small correction.
+	sGood := sok && (sk >= 0 || math.Abs(sShift) <= referenceNearPPM)
+	tGood := tl >= 0 && math.Abs(tShift) <= tmsAutoWindowPPM
 	switch mode {
 	case RefNone:
-		out.used = RefNone
+		return refOutcome{used: RefNone}
 	case RefTMS:
-		if tk < 0 {
-			out.used = RefNone
-			out.warnings = append(out.warnings, fmt.Sprintf("no TMS singlet within ±%.2f ppm of 0; axis left as in the file", referenceWindowPPM))
-			return out
+		if tl < 0 {
+			return refOutcome{used: RefNone, warnings: []string{fmt.Sprintf("no TMS peak within ±%.2f ppm of 0; axis left as in the file", referenceWindowPPM)}}
 		}
-		out.shift, out.used = tShift, RefTMS
+		return refOutcome{shift: tShift, used: RefTMS}
 	case RefSolvent:
-		out = solventRef(sok, sShift, sol, haveSol)
-	default: // auto
-		switch {
-		case tk >= 0 && (!sok || math.Abs(tShift-sShift) <= referenceAgreePPM):
-			out.shift, out.used = tShift, RefTMS
-		case sok:
-			out = solventRef(true, sShift, sol, haveSol)
-			if tk >= 0 {
-				gs[tk].label = ""
-				out.warnings = append(out.warnings, fmt.Sprintf("singlet at %.3f ppm not taken as TMS: it disagrees with the %s residual by %.3f ppm", gs[tk].centerPPM, sol.Name, math.Abs(tShift-sShift)))
-			}
-		default:
-			out = solventRef(false, 0, sol, haveSol)
+		out := solventRef(sok, sShift, sol, haveSol)
+		if sok && !sGood {
+			out.warnings = append(out.warnings, fmt.Sprintf("the line taken as the %s residual (%.3f ppm) lacks its pattern", sol.Name, sobs))
 		}
+		return out
+	}
+	// auto
+	tSharp := tGood && ls[tl].snr >= tmsMinSNR
+	switch {
+	case tSharp:
+		out := refOutcome{shift: tShift, used: RefTMS}
+		if sGood && math.Abs(tShift-sShift) > referenceAgreePPM {
+			out.warnings = append(out.warnings, fmt.Sprintf("the %s residual sits %.3f ppm from its tabulated shift after referencing to TMS", sol.Name, math.Abs(tShift-sShift)))
+		}
+		return out
+	case sGood && math.Abs(sShift) <= residualSpreadPPM:
+		// The residual is where it should be, within its natural spread:
+		// the file is referenced; keep the axis.
+		if tk >= 0 {
+			gs[tk].label = ""
+		}
+		return refOutcome{used: RefSolvent}
+	case sGood:
+		if tk >= 0 {
+			gs[tk].label = ""
+		}
+		return solventRef(true, sShift, sol, haveSol)
+	}
+	if tk >= 0 {
+		gs[tk].label = ""
+	}
+	out := solventRef(false, 0, sol, haveSol)
+	if sok {
+		out.warnings = []string{fmt.Sprintf("no convincing %s residual signal (nearest line %.3f ppm, without its pattern) and no TMS; axis left as in the file", sol.Name, sobs)}
 	}
 	return out
 }
