@@ -424,3 +424,25 @@ func TestNTuples(t *testing.T) {
 		}
 	}
 }
+
+// TestWarnings: inconsistencies that do not lose data are reported with
+// their line, and the data are kept.
+func TestWarnings(t *testing.T) {
+	t.Parallel()
+	// Line 12 claims X=150 where point 3 lies at 300 Hz (FIRSTX 500, step -100).
+	src := jdx(smallHeader+"##DELTAX=-90\n", "500 1 2", "150 3 4 5")
+	s, err := ReadJCAMP(strings.NewReader(src), "w.jdx")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []string{
+		"w.jdx:9: ##DELTAX=-90 disagrees with (LASTX-FIRSTX)/(NPOINTS-1) = -100; using the latter",
+		"w.jdx:12: line starts at X=150 but point 3 lies at 300 (FIRSTX + index*DELTAX)",
+	}
+	if len(s.Warnings) != 2 || s.Warnings[0] != want[0] || s.Warnings[1] != want[1] {
+		t.Errorf("warnings %q, want %q", s.Warnings, want)
+	}
+	if !equalFloats(s.Y, []float64{5, 4, 3, 2, 1}) {
+		t.Errorf("y %v", s.Y)
+	}
+}
