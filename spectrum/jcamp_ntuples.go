@@ -181,6 +181,12 @@ func (br *blockReader) decodePage(v ntVars, pg *ntPage, x, y int) error {
 	if p.lastX, p.hasLast, err = num(v.last, x, "LAST"); err != nil {
 		return err
 	}
+	if p.firstY, p.hasFirstY, err = num(v.first, y, "FIRST"); err != nil {
+		return err
+	}
+	if r := br.b.find("FIRST"); r != nil {
+		p.firstYLine = r.line
+	}
 	for _, f := range []struct {
 		dst *float64
 		i   int

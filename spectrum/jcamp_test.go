@@ -446,3 +446,15 @@ func TestWarnings(t *testing.T) {
 		t.Errorf("y %v", s.Y)
 	}
 }
+
+func TestFirstYWarning(t *testing.T) {
+	t.Parallel()
+	// FIRSTY=20 but the first value is 1 (YFACTOR 1): reported at line 9.
+	s, err := ReadJCAMP(strings.NewReader(jdx(smallHeader+"##FIRSTY=20\n", "500 1 2 3 4 5")), "y.jdx")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(s.Warnings) != 1 || !strings.HasPrefix(s.Warnings[0], "y.jdx:9: first Y value 1 disagrees") {
+		t.Errorf("warnings %q", s.Warnings)
+	}
+}

@@ -17,6 +17,9 @@ type xyParams struct {
 	nPoints                 int // -1 when unknown
 	nPointsLine             int
 	countLabel              string // "NPOINTS" or "VAR_DIM", for messages
+	firstY                  float64
+	hasFirstY               bool
+	firstYLine              int
 	units                   string
 	unitsLine               int
 	table                   *ldr // the ##XYDATA= or ##DATA TABLE= record
@@ -78,6 +81,9 @@ func (br *blockReader) xydata() error {
 	if r := br.b.find("XUNITS"); r != nil {
 		p.units, p.unitsLine = r.value, r.line
 	}
+	if p.firstY, p.hasFirstY, p.firstYLine, err = br.optNum("FIRSTY"); err != nil {
+		return err
+	}
 	return br.decodeTrace(p)
 }
 
@@ -123,6 +129,10 @@ func (br *blockReader) decodeTrace(p xyParams) error {
 	}
 	for i := range d.ys {
 		d.ys[i] *= p.yFactor
+	}
+	// FIRSTY is rounded in most files: allow one Y step or 1e-4 relative.
+	if p.hasFirstY && math.Abs(d.ys[0]-p.firstY) > math.Max(math.Abs(p.yFactor), 1e-4*math.Abs(p.firstY)) {
+		br.warnf(p.firstYLine, "first Y value %s disagrees with the header's %s (check YFACTOR)", fmtNum(d.ys[0]), fmtNum(p.firstY))
 	}
 	return br.setTrace(xs, d.ys, p.units, p.unitsLine, p.table.line)
 }
