@@ -18,7 +18,7 @@ type Environment struct {
 	Protons                []Proton // ordered by (Atom, Index)
 	NH                     int      // number of protons
 	Kind                   string   // CH3, CH2, CH, =CH2, =CH, ArH, CHO, ≡CH, OH, NH, NH2, COOH, SH, …
-	Exchangeable           bool     // H on O, N or S
+	Exchangeable           bool     // H on O, N or S (and HCl, HBr, … of salts)
 	MagneticallyEquivalent bool     // every member couples alike to every other spin
 }
 
@@ -26,8 +26,11 @@ type Environment struct {
 // sets, ordered by their first proton (atom, index) and labelled A, B, ….
 //
 // Protons start in one set per symmetry class of their heavy atom, refined by
-// double-bond geometry (so that E/Z-distinct vinyl groups part), and are then
-// split where NMR tells them apart although topology does not:
+// double-bond geometry (so that E/Z-distinct vinyl groups part) and by pairs
+// of like groups that NMR tells apart (see envPairTags: the two groups on an
+// amide N, as in DMF; diastereotopic groups such as the isopropyl CH3 of
+// valine). Sets are then split where NMR distinguishes the hydrogens of one
+// atom although topology does not:
 //
 //   - the two H of a =CH2 group when they are cis to different groups;
 //   - the two H of a CH2 group that are diastereotopic: the carbon is sp3
@@ -35,16 +38,17 @@ type Environment struct {
 //     class and a stereocentre lies within two bonds of it (an atom with a
 //     written @ or @@, or an sp3 atom with four substituents of different
 //     class), or (b) it lies in a ring of at most 8 atoms whose two faces
-//     differ: another
-//     sp3 ring member carries two different groups outside the ring
-//     (methylcyclohexane, cyclohexanol, decalin). Ethyl groups of achiral
-//     molecules, cyclohexane and cyclohexanone are therefore not split. The
-//     rule is deliberately conservative: remote stereocentres, meso
-//     relations and diastereotopic methyl groups (isopropyl next to a
-//     stereocentre) are not considered.
+//     differ: another sp3 ring member carries two different groups outside
+//     the ring (methylcyclohexane, cyclohexanol, decalin);
+//   - the two H of a primary amide NH2 (cis and trans to O).
+//
+// Ethyl groups of achiral molecules, cyclohexane and cyclohexanone are not
+// split. The rule is deliberately conservative: stereocentres more than two
+// bonds away and meso or C2-related pairs (pentane-2,4-diol CH2) are not
+// considered, and ring flipping and fast rotation are assumed.
 //
 // The member of a split pair with proton Index 0 goes to the first set. See
-// magneticallyEquivalent for the MagneticallyEquivalent flag.
+// envMagnetic for the MagneticallyEquivalent flag.
 func (m *Mol) Environments() []Environment {
 	cls := m.SymmetryClasses()
 	bonds := m.alkBonds(cls)
@@ -102,15 +106,22 @@ func (m *Mol) envBuild(k int, ps []Proton) Environment {
 // envClasses refines the symmetry classes by double-bond geometry: each
 // carbon of a C=C gets, as an extra invariant, the sorted pairs (class of a
 // position on it, class of the position cis to it), hydrogens counting as -1.
+//
+// Pairs of like groups that NMR tells apart (see envPairTags) get a tag 1
+// or 2 as a further invariant.
 func (m *Mol) envClasses(cls []int, bonds []alkBond) []int {
-	if len(bonds) == 0 {
+	tags := m.envPairTags(cls)
+	if len(bonds) == 0 && tags == nil {
 		return cls
 	}
 	cur := cls
 	for {
 		init := make([][]int, len(m.Atoms))
 		for a := range init {
-			init[a] = []int{cls[a]}
+			init[a] = []int{cls[a], 0}
+			if tags != nil {
+				init[a][1] = tags[a]
+			}
 		}
 		for _, ab := range bonds {
 			init[ab.a] = append(init[ab.a], alkDescriptor(ab.sa, ab.sb, cur)...)
@@ -144,7 +155,7 @@ func alkDescriptor(own, other [2]alkSlot, cls []int) []int {
 
 // envSubKey separates protons of one atom class that NMR distinguishes:
 // =CH2 hydrogens by the class of the group cis to them, diastereotopic CH2
-// hydrogens by their index.
+// and primary amide NH2 hydrogens by their index.
 func (m *Mol) envSubKey(p Proton, ecls, cls []int, bonds []alkBond) int {
 	at := &m.Atoms[p.Atom]
 	if at.HCount() != 2 {
@@ -160,11 +171,14 @@ func (m *Mol) envSubKey(p Proton, ecls, cls []int, bonds []alkBond) int {
 	if m.diastereotopic(p.Atom, cls) {
 		return -1 - p.Index
 	}
+	if _, ok := m.amideN(p.Atom); ok {
+		return -1 - p.Index // primary amide NH2: cis and trans to O
+	}
 	return 0
 }
 
 // protonKind names the kind of hydrogen carried by atom a and says whether
-// it exchanges (H on O, N, S).
+// it exchanges (H on O, N, S, and hydrogen halides).
 func (m *Mol) protonKind(a int) (string, bool) {
 	at := &m.Atoms[a]
 	h := at.HCount()
@@ -183,6 +197,8 @@ func (m *Mol) protonKind(a int) (string, bool) {
 		return envCount("NH", h) + envCharge(at.Charge), true
 	case "S":
 		return envCount("SH", h), true
+	case "F", "Cl", "Br", "I":
+		return "H" + at.Element, true // hydrogen halide, as in a hydrochloride salt
 	}
 	return envCount(at.Element+"H", h), false
 }

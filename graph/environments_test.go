@@ -49,6 +49,19 @@ func TestEnvironmentCounts(t *testing.T) {
 		{"pyridine", "c1ccncc1", []int{2, 2, 1}},
 		{"pyrrole", "c1cc[nH]c1", []int{2, 2, 1}},
 		{"methylammonium", "C[NH3+]", []int{3, 3}},
+		// Slow amide C–N rotation: DMF shows two N-CH3 singlets (Gottlieb,
+		// Kotlyar & Nudelman, J. Org. Chem. 1997, 62, 7512, Table 1: DMF
+		// CH3 at 2.88 and 2.96 ppm in CDCl3, from memory).
+		{"DMF: two N-CH3", "CN(C)C=O", []int{3, 3, 1}},
+		{"N,N-diethylformamide", "CCN(CC)C=O", []int{3, 3, 2, 2, 1}},
+		{"acetamide: two NH", "CC(N)=O", []int{3, 1, 1}},
+		{"tetramethylurea: not split", "CN(C)C(=O)N(C)C", []int{12}},
+		// Diastereotopic isopropyl CH3 next to a stereocentre: L-valine and
+		// L-leucine show two CH3 doublets (common practice, no source).
+		{"L-valine", "CC(C)[C@H](N)C(=O)O", []int{3, 3, 2, 1, 1, 1}},
+		{"L-leucine", "CC(C)C[C@H](N)C(=O)O", []int{3, 3, 2, 1, 1, 1, 1, 1}},
+		{"tert-leucine: t-Bu not split", "CC(C)(C)[C@H](N)C(=O)O", []int{9, 2, 1, 1}},
+		{"isobutanol: achiral, CH3 alike", "CC(C)CO", []int{6, 2, 1, 1}},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {

@@ -1,8 +1,11 @@
 package graph
 
-// This file holds the two finer judgements made on proton sets: whether the
-// hydrogens of a CH2 are diastereotopic, and whether the members of a set
-// are magnetically equivalent.
+import "slices"
+
+// This file holds the finer judgements made on proton sets: whether the
+// hydrogens of a CH2 (or two like groups) are diastereotopic, which amide
+// groups are distinct, and whether the members of a set are magnetically
+// equivalent.
 
 // diastereotopic reports whether the two hydrogens of atom c are
 // diastereotopic by the conservative rule documented on Environments.
@@ -217,4 +220,148 @@ func hetKey(dist int) int {
 		return 0
 	}
 	return dist + 1
+}
+
+// envPairTags marks pairs of topologically equivalent groups that NMR
+// nevertheless tells apart, so that the refinement in envClasses parts them
+// and everything in their branches:
+//
+//   - the two groups on an amide nitrogen, cis and trans to the carbonyl O
+//     (slow C–N rotation: the two N-CH3 of DMF and DMA give two signals);
+//     amides proper only: the carbonyl carbon carries H or carbon, not N or
+//     O (ureas and carbamates rotate faster and are left alone);
+//   - diastereotopic groups: two like groups on an sp3 carbon whose other
+//     two positions differ, when a stereocentre lies within two bonds (the
+//     isopropyl CH3 of valine and leucine), or when the carbon is in a ring
+//     of at most 8 atoms whose faces differ (1,1,3-trimethylcyclohexane).
+//
+// Which member of a pair is first is arbitrary (the lower atom index); the
+// partition does not depend on it. It returns nil when there is no pair.
+func (m *Mol) envPairTags(cls []int) []int {
+	var tags []int
+	for x := range m.Atoms {
+		g1, g2, ok := m.amidePair(x, cls)
+		if !ok {
+			g1, g2, ok = m.diastereotopicPair(x, cls)
+		}
+		if !ok {
+			continue
+		}
+		if tags == nil {
+			tags = make([]int, len(m.Atoms))
+		}
+		tags[min(g1, g2)], tags[max(g1, g2)] = 1, 2
+	}
+	return tags
+}
+
+// amideN returns the acyl carbon of x when x is an amide nitrogen: neutral,
+// non-aromatic, singly bonded with three positions, bonded to a carbon that
+// is doubly bonded to O or S and otherwise carries only H or carbon.
+func (m *Mol) amideN(x int) (int, bool) {
+	at := &m.Atoms[x]
+	if at.Element != "N" || at.Charge != 0 || m.Degree(x)+at.HCount() != 3 || !m.envSingleBonded(x) {
+		return -1, false
+	}
+	for _, c := range m.Neighbors(x) {
+		if m.Atoms[c].Element != "C" || m.Atoms[c].Aromatic {
+			continue
+		}
+		acyl, other := false, true
+		for _, bi := range m.adj[c] {
+			b := &m.Bonds[bi]
+			o := b.Other(c)
+			switch el := m.Atoms[o].Element; {
+			case b.Order == 2 && (el == "O" || el == "S"):
+				acyl = true
+			case o != x && el != "C":
+				other = false
+			}
+		}
+		if acyl && other {
+			return c, true
+		}
+	}
+	return -1, false
+}
+
+// amidePair returns the two like heavy groups on amide nitrogen x.
+func (m *Mol) amidePair(x int, cls []int) (int, int, bool) {
+	c, ok := m.amideN(x)
+	if !ok || m.Degree(x) != 3 {
+		return 0, 0, false
+	}
+	var g []int
+	for _, o := range m.Neighbors(x) {
+		if o != c {
+			g = append(g, o)
+		}
+	}
+	if cls[g[0]] != cls[g[1]] {
+		return 0, 0, false
+	}
+	return g[0], g[1], true
+}
+
+// diastereotopicPair returns two like groups on sp3 carbon x that are
+// diastereotopic by the rule documented on envPairTags.
+func (m *Mol) diastereotopicPair(x int, cls []int) (int, int, bool) {
+	at := &m.Atoms[x]
+	h := at.HCount()
+	if at.Element != "C" || m.Degree(x)+h != 4 || h > 1 || !m.envSingleBonded(x) {
+		return 0, 0, false
+	}
+	nb := m.Neighbors(x)
+	g1, g2, rest := -1, -1, []int(nil)
+	for i, a := range nb {
+		for _, b := range nb[i+1:] {
+			if cls[a] == cls[b] {
+				if g1 >= 0 {
+					return 0, 0, false // three like groups, or two pairs
+				}
+				g1, g2 = a, b
+			}
+		}
+	}
+	if g1 < 0 {
+		return 0, 0, false
+	}
+	for _, a := range nb {
+		if a != g1 && a != g2 {
+			rest = append(rest, a)
+		}
+	}
+	if m.nearStereocentre(x, g1, g2, cls) {
+		return g1, g2, true
+	}
+	if h == 0 && len(rest) == 2 {
+		ring := m.envSmallestRing(x, rest[0], rest[1])
+		if ring != nil && len(ring) <= 8 && !slices.Contains(ring, g1) && !slices.Contains(ring, g2) {
+			in := make(map[int]bool, len(ring))
+			for _, r := range ring {
+				in[r] = true
+			}
+			for _, r := range ring {
+				if r != x && m.faceDifferentiating(r, in, cls) {
+					return g1, g2, true
+				}
+			}
+		}
+	}
+	return 0, 0, false
+}
+
+// nearStereocentre reports whether a stereocentre lies within two bonds of
+// x, outside the like groups g1 and g2 and at equal distance from both (a
+// stereocentre inside one of the groups has a twin in the other, a meso or
+// C2 case this rule leaves alone).
+func (m *Mol) nearStereocentre(x, g1, g2 int, cls []int) bool {
+	dx := m.symDistances(x)
+	d1, d2 := m.symDistances(g1), m.symDistances(g2)
+	for y, d := range dx {
+		if d >= 1 && d <= 2 && y != g1 && y != g2 && d1[y] == d2[y] && m.stereocentre(y, cls) {
+			return true
+		}
+	}
+	return false
 }
