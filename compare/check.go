@@ -90,7 +90,7 @@ func Check(in Input, opt Options) (*Result, error) {
 	res.Warnings = append(append(append(res.Warnings, pl.Warnings...), warn...), pred.Warnings...)
 	res.Artifact = append(res.Artifact, peakArtifacts(pl)...)
 	if in.Standard != nil {
-		res.Purity.QNMR, err = qnmrFor(in.Standard, main, ms, extras)
+		res.Purity.QNMR, err = qnmrFor(in.Standard, main, main.ms, extras)
 		if err != nil {
 			res.Warnings = append(res.Warnings, err.Error())
 		} else {
@@ -173,9 +173,13 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 	p2 := *pred
 	p2.Signals = sig
 	sigM, scale, spread := matchStructure(sig, ms, avail, penalty, field)
-	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread}
-	ev.ex = explain(ms, pre, sig, sigM, scale, field, solv, solvOK, extras)
-	ev.evaluate(ms, field)
+	eff := absorbParts(sig, ms, avail, sigM, scale)
+	if s, sp := fitScale(sig, eff, sigM, penalty); s > 0 {
+		scale, spread = s, sp
+	}
+	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff}
+	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras)
+	ev.evaluate(eff, field)
 	return ev
 }
 
@@ -295,7 +299,7 @@ func rankCandidates(res *Result, in Input, opt Options, pr Predictor, main *eval
 	for k := range list {
 		list[k].c.Rank = k + 1
 		if k > 0 && list[k].ev != nil {
-			list[k].c.Discriminating = list[k].ev.discriminating(ms)
+			list[k].c.Discriminating = list[k].ev.discriminating(list[k].ev.ms)
 		}
 		res.Candidates = append(res.Candidates, list[k].c)
 	}

@@ -27,6 +27,7 @@ const (
 	minIntegralScore  = 0.60 // below: inconsistent
 	reviewIntegral    = 0.80 // below: review
 	maxUnknownPct     = 10.0 // unknown intensity above this (%): review
+	maxShapeFrac      = 0.20 // H with a clearly different multiplicity above this: review
 )
 
 // evaluation is one structure scored against the spectrum.
@@ -47,6 +48,7 @@ type evaluation struct {
 	missing []string
 	z       []float64
 	mc      []float64
+	ms      []mplet // the multiplets as this structure sees them (parts absorbed)
 }
 
 // score fills parts, score, verdict and reasons of ev.
@@ -172,6 +174,7 @@ func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
 			review = true
 		}
 	}
+	shapeH, shapeN := 0.0, 0
 	for i, s := range sig {
 		if j := ev.sigM[i]; j >= 0 && !s.Exchangeable && ev.z[i] > poorZ {
 			rs = append(rs, fmt.Sprintf("signal %s predicted at %.2f %s (%d H), nearest measured multiplet %.2f %s (%.1f SD away)",
@@ -179,8 +182,15 @@ func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
 		} else if j >= 0 && !s.Exchangeable && ev.mc[i] >= 1.5 {
 			rs = append(rs, fmt.Sprintf("signal %s predicted as %s, measured multiplet at %.2f is %s",
 				s.Label, orM(s.Multiplicity), ms[j].ppm, orM(ms[j].mult)))
-			review = true
+			shapeH += float64(s.NH)
+			shapeN++
 		}
+	}
+	// One odd multiplicity is common (unresolved or second-order
+	// patterns, picking noise); several, or a large share of the H, ask for
+	// review.
+	if shapeN >= 2 || (nonExch > 0 && shapeH/nonExch > maxShapeFrac) {
+		review = true
 	}
 	if nonExch > 0 && badH/nonExch > maxBadFrac {
 		incons = true

@@ -93,6 +93,11 @@ func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, 
 		}
 	}
 	expectH := make([]float64, len(ms))
+	for j := range ms {
+		if ms[j].part {
+			ex.owner[j] = "compound"
+		}
+	}
 	for i, j := range sigM {
 		if j < 0 {
 			continue
@@ -105,7 +110,7 @@ func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, 
 	ex.findArtifacts(ms, field)
 	for j, o := range ex.owner {
 		if pre[j] == "" && o != "artifact" {
-			ex.total += ms[j].area
+			ex.total += ms[j].area // a part's area is counted with its host
 		}
 	}
 	for _, e := range extras {

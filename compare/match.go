@@ -35,6 +35,8 @@ type mplet struct {
 	mult     string
 	j        []float64
 	label    string // processing's label: spectrum.LabelSolvent, spectrum.LabelTMS or ""
+	part     bool   // absorbed into multiplet host as a second part of its signal
+	host     int
 }
 
 func prepMultiplets(pl *spectrum.PeakList) []mplet {
@@ -292,4 +294,60 @@ func matchStructure(sig []predict.Signal, ms []mplet, avail []bool, penalty []fl
 		scale, spread = s, sp
 	}
 	return sigM, scale, spread
+}
+
+// absorbParts handles a signal measured as two multiplets (amide rotamers,
+// diastereotopic CH2 predicted as one signal, a multiplet cut in two by
+// processing): a free multiplet within 3 SD of a signal whose multiplet is
+// clearly short of H, and no larger than that shortfall, becomes a second
+// part of it. It returns a copy of ms with the part's area moved to the
+// host (the part keeps zero area and part=true).
+func absorbParts(sig []predict.Signal, ms []mplet, avail []bool, sigM []int, scale float64) []mplet {
+	out := append([]mplet(nil), ms...)
+	if scale <= 0 {
+		return out
+	}
+	used := make([]bool, len(ms))
+	expect := make([]float64, len(ms))
+	for i, j := range sigM {
+		if j >= 0 {
+			used[j] = true
+			if !sig[i].Exchangeable {
+				expect[j] += float64(sig[i].NH)
+			}
+		}
+	}
+	for i, j := range sigM {
+		s := sig[i]
+		if j < 0 || s.Exchangeable || s.NH < 2 {
+			continue
+		}
+		deficit := expect[j] - out[j].area*scale
+		if deficit < math.Max(0.7, 0.3*expect[j]) {
+			continue
+		}
+		best, bz := -1, 3.0
+		for u := range ms {
+			if used[u] || !avail[u] || ms[u].label != "" {
+				continue
+			}
+			h := ms[u].area * scale
+			if h < 0.3*deficit || h > 1.5*deficit+0.3 {
+				continue
+			}
+			if z := shiftDistance(s.ShiftPPM, ms[u]) / signalSD(s); z <= bz {
+				best, bz = u, z
+			}
+		}
+		if best < 0 {
+			continue
+		}
+		used[best] = true
+		out[j].area += ms[best].area
+		out[j].from = math.Min(out[j].from, ms[best].from)
+		out[j].to = math.Max(out[j].to, ms[best].to)
+		out[best].area = 0
+		out[best].part, out[best].host = true, j
+	}
+	return out
 }
