@@ -226,8 +226,14 @@ func (t *Table) smallRing(v *view, c int, a *acc) {
 	key := fmt.Sprintf("ring%d", sizes[0])
 	if sizes[0] == 3 {
 		for _, r := range v.rings {
-			if len(r) == 3 && slices.Contains(r, c) && heteroRing(v, r) {
+			if len(r) != 3 || !slices.Contains(r, c) {
+				continue
+			}
+			switch {
+			case heteroRing(v, r):
 				key = "ring3-hetero"
+			case ringSubstituted(v, r):
+				key = "ring3-substituted"
 			}
 		}
 	}
@@ -317,6 +323,19 @@ func (t *Table) alkeneConj(v *view, c, partner, x int) bool {
 	if y := v.doubleTo(x, "C"); y >= 0 {
 		for _, z := range v.m.Neighbors(y) {
 			if z != x && v.conjugating(y, z) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// ringSubstituted reports whether any atom of ring r has a heavy-atom
+// neighbour outside the ring.
+func ringSubstituted(v *view, r []int) bool {
+	for _, a := range r {
+		for _, x := range v.m.Neighbors(a) {
+			if !slices.Contains(r, x) {
 				return true
 			}
 		}

@@ -10,6 +10,7 @@ import (
 	"os"
 	"regexp"
 	"slices"
+	"strconv"
 	"strings"
 	"sync"
 
@@ -245,7 +246,13 @@ func (t *Table) Merge(r io.Reader, name string) error {
 		if errors.As(err, &pe) {
 			return &Error{File: name, Line: pe.Position.Line, Key: pe.LastKey, Msg: pe.Message}
 		}
-		return &Error{File: name, Msg: err.Error()}
+		// Type mismatches come as plain errors:
+		// `toml: line 3 (last key "alpha.ch3"): incompatible types: …`.
+		if m := decodeErrRE.FindStringSubmatch(err.Error()); m != nil {
+			line, _ := strconv.Atoi(m[1])
+			return &Error{File: name, Line: line, Key: m[2], Msg: m[3]}
+		}
+		return &Error{File: name, Msg: strings.TrimPrefix(err.Error(), "toml: ")}
 	}
 	lines := indexLines(data)
 	if und := md.Undecoded(); len(und) > 0 {
@@ -417,6 +424,8 @@ type lineIndex struct {
 	headers map[string][]int // section → 1-based lines of its [[section]] headers
 }
 
+var decodeErrRE = regexp.MustCompile(`^toml: line (\d+) \(last key "([^"]*)"\): (.*)$`)
+
 var headerRE = regexp.MustCompile(`^\s*\[\[\s*([A-Za-z0-9_.-]+)\s*\]\]`)
 
 func indexLines(data []byte) lineIndex {
@@ -442,17 +451,20 @@ func (li lineIndex) keyLine(k toml.Key) int {
 	if len(k) == 0 {
 		return 0
 	}
-	start := 0
+	start, found := 0, false
 	if h := li.headers[k[0]]; len(h) > 0 {
-		start = h[0] - 1
+		start, found = h[0]-1, true
 	} else {
 		tre := regexp.MustCompile(`^\s*\[\s*` + regexp.QuoteMeta(k[0]) + `\s*\]`)
 		for i, l := range li.lines {
 			if tre.MatchString(l) {
-				start = i
+				start, found = i, true
 				break
 			}
 		}
+	}
+	if len(k) == 1 && found {
+		return start + 1
 	}
 	last := k[len(k)-1]
 	re := regexp.MustCompile(`^\s*"?` + regexp.QuoteMeta(last) + `"?\s*=`)
