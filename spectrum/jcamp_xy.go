@@ -239,12 +239,33 @@ func (br *blockReader) setTrace(xs, ys []float64, units string, unitsLine, line 
 			return errorf(br.file, line, "X values overflow (check FIRSTX, LASTX, XFACTOR)")
 		}
 	}
+	sortTrace(xs, ys)
+	br.s.PPM, br.s.Y = xs, ys
+	return nil
+}
+
+// sortTrace puts a trace in ascending x order: reversed when it runs
+// downwards (the usual NMR order), sorted when it is unordered (XYPOINTS).
+func sortTrace(xs, ys []float64) {
 	if len(xs) > 1 && xs[0] > xs[len(xs)-1] {
 		reverseFloats(xs)
 		reverseFloats(ys)
 	}
-	br.s.PPM, br.s.Y = xs, ys
-	return nil
+	if sort.Float64sAreSorted(xs) {
+		return
+	}
+	idx := make([]int, len(xs))
+	for i := range idx {
+		idx[i] = i
+	}
+	sort.SliceStable(idx, func(a, b int) bool { return xs[idx[a]] < xs[idx[b]] })
+	x2 := make([]float64, len(xs))
+	y2 := make([]float64, len(ys))
+	for i, k := range idx {
+		x2[i], y2[i] = xs[k], ys[k]
+	}
+	copy(xs, x2)
+	copy(ys, y2)
 }
 
 // shiftReference applies "##.SHIFT REFERENCE= type, compound, point, ppm"
@@ -366,7 +387,6 @@ func (br *blockReader) xypoints() error {
 	if isTimeUnit(units) {
 		return errorf(br.file, unitsLine, "time-domain data is not supported yet (X units %s)", units)
 	}
-	sort.SliceStable(rows, func(i, j int) bool { return rows[i][0]*xf < rows[j][0]*xf })
 	xs := make([]float64, len(rows))
 	ys := make([]float64, len(rows))
 	for i, row := range rows {
@@ -405,6 +425,11 @@ func (br *blockReader) peakTable() error {
 	}
 	if err := br.toPPM(xs, units, unitsLine, r.line); err != nil {
 		return err
+	}
+	for _, x := range xs {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return errorf(br.file, r.line, "peak positions overflow (check XFACTOR)")
+		}
 	}
 	for i, row := range rows {
 		p := Peak{PPM: xs[i], Intensity: row[1] * yf}
