@@ -47,8 +47,12 @@ type Environment struct {
 // bonds away and meso or C2-related pairs (pentane-2,4-diol CH2) are not
 // considered, and ring flipping and fast rotation are assumed.
 //
-// The member of a split pair with proton Index 0 goes to the first set. See
-// envMagnetic for the MagneticallyEquivalent flag.
+// The member of a split pair with proton Index 0 goes to the first set, and
+// of two like groups the one with the lower atom index gets the first tag.
+// Where a molecule holds several such pairs related by symmetry (the two
+// amides of N,N,N',N'-tetramethylterephthalamide) the pairing across them
+// cannot be read from a SMILES and follows atom order; set sizes and kinds
+// do not depend on it. See envMagnetic for the MagneticallyEquivalent flag.
 func (m *Mol) Environments() []Environment {
 	cls := m.SymmetryClasses()
 	bonds := m.alkBonds(cls)

@@ -352,14 +352,17 @@ func (m *Mol) diastereotopicPair(x int, cls []int) (int, int, bool) {
 }
 
 // nearStereocentre reports whether a stereocentre lies within two bonds of
-// x, outside the like groups g1 and g2 and at equal distance from both (a
-// stereocentre inside one of the groups has a twin in the other, a meso or
-// C2 case this rule leaves alone).
+// x, outside the like groups g1 and g2, and is the only atom of its
+// symmetry class. A stereocentre with a topological twin may be mapped onto
+// it by a mirror or a C2 axis that also swaps g1 and g2 (the bridgehead
+// neighbours of cis-decalin), a case this rule leaves alone.
 func (m *Mol) nearStereocentre(x, g1, g2 int, cls []int) bool {
-	dx := m.symDistances(x)
-	d1, d2 := m.symDistances(g1), m.symDistances(g2)
-	for y, d := range dx {
-		if d >= 1 && d <= 2 && y != g1 && y != g2 && d1[y] == d2[y] && m.stereocentre(y, cls) {
+	count := make(map[int]int)
+	for _, c := range cls {
+		count[c]++
+	}
+	for y, d := range m.symDistances(x) {
+		if d >= 1 && d <= 2 && y != g1 && y != g2 && count[cls[y]] == 1 && m.stereocentre(y, cls) {
 			return true
 		}
 	}
