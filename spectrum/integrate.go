@@ -23,7 +23,8 @@ import (
 // region sum (it is meant for tails, not for separating overlapping signals).
 //
 // Relative integrals: the well-resolved multiplets (first-order, not the
-// solvent or the reference) are scaled so that the smallest of them is a
+// solvent or the reference, at least minResolvedFrac of the largest
+// multiplet) are scaled so that the smallest of them is a
 // whole number n of protons, n being the smallest of 1…4 for which all of
 // them come out near whole numbers (mean distance ≤ 0.12); with no such n,
 // n = 1. An IntegralRef replaces this rule. For a peak list without a trace,
@@ -36,6 +37,10 @@ const (
 	wholeTolerance        = 0.12
 	maxWholeN             = 4
 	tailCorrectionCap     = 0.15
+	// minResolvedFrac: multiplets smaller than this fraction of the largest
+	// are impurities or artifacts, not candidates for the integral unit
+	// (1/16 still admits a 1H signal beside a 16H one).
+	minResolvedFrac = 1.0 / 16
 )
 
 // IntegralRef fixes the scale of the relative integrals: the multiplet at
@@ -162,15 +167,22 @@ func scaleIntegrals(gs []group, ref *IntegralRef) (float64, error) {
 	if ref != nil {
 		return scaleByRef(gs, ref)
 	}
+	largest := 0.0
+	for _, g := range gs {
+		if g.label == "" {
+			largest = math.Max(largest, g.raw)
+		}
+	}
+	floor := minResolvedFrac * largest
 	var resolved []float64
 	for _, g := range gs {
-		if g.label == "" && g.multiplicity != "m" && g.raw > 0 {
+		if g.label == "" && g.multiplicity != "m" && g.raw > 0 && g.raw >= floor {
 			resolved = append(resolved, g.raw)
 		}
 	}
 	if len(resolved) == 0 {
 		for _, g := range gs {
-			if g.label == "" && g.raw > 0 {
+			if g.label == "" && g.raw > 0 && g.raw >= floor {
 				resolved = append(resolved, g.raw)
 			}
 		}

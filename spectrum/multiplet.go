@@ -13,8 +13,8 @@ import (
 // nearly all 2J and 3J H–H couplings; common practice, no source), or when
 // the trace between them never falls below a quarter of the smaller peak (the
 // two lines overlap so much that no integral boundary can be drawn between
-// them), with 3σ as a floor — in both cases only when their heights differ by
-// less than groupMaxRatio (the outer line of a septet is 1/20 of its centre,
+// them), with 3σ as a floor — in both cases only when the new peak and the
+// tallest peak of the multiplet so far differ by less than groupMaxRatio (the outer line of a septet is 1/20 of its centre,
 // Pascal's triangle), so that small signals on the foot of a strong line
 // stay separate. Peaks flagged as artifacts (13C satellites,
 // spinning sidebands) are left out.
@@ -62,6 +62,7 @@ type group struct {
 func groupLines(ls []line, fieldMHz, jMaxHz, sigma float64, valley func(a, b int) float64) []group {
 	var out []group
 	var cur []int
+	gmax := 0.0 // tallest line of cur
 	for i := range ls {
 		if ls[i].artifact != "" {
 			continue
@@ -70,14 +71,15 @@ func groupLines(ls []line, fieldMHz, jMaxHz, sigma float64, valley func(a, b int
 			p := cur[len(cur)-1]
 			gap := (ls[i].ppm - ls[p].ppm) * fieldMHz
 			floor := math.Max(3*sigma, 0.25*math.Min(ls[i].height, ls[p].height))
-			hi, lo := math.Max(ls[i].height, ls[p].height), math.Min(ls[i].height, ls[p].height)
+			hi, lo := math.Max(ls[i].height, gmax), math.Min(ls[i].height, gmax)
 			join := hi <= groupMaxRatio*lo && (gap <= jMaxHz || valley(p, i) > floor)
 			if !join {
 				out = append(out, group{lines: cur})
-				cur = nil
+				cur, gmax = nil, 0
 			}
 		}
 		cur = append(cur, i)
+		gmax = math.Max(gmax, ls[i].height)
 	}
 	if len(cur) > 0 {
 		out = append(out, group{lines: cur})

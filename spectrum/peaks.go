@@ -7,8 +7,8 @@ import (
 // Peak picking.
 //
 // A peak is a local maximum of the baseline-corrected trace that rises at
-// least MinSNR·σ above the baseline and stands at least pickProminence·σ above
-// the higher of the two valleys that separate it from taller neighbours
+// least MinSNR·σ above the baseline and stands as much (at least
+// pickProminence·σ) above the higher of the two valleys that separate it from taller neighbours
 // within pickWindowHz (the topographic prominence, which rejects noise ripples
 // on the flanks of a line), and that is at least half as wide as the strong
 // lines of the spectrum (which rejects single noise points on line tails;
@@ -57,7 +57,7 @@ func pickLines(ppm, y []float64, sigma, minSNR, hzPerPoint float64) []line {
 		if v < thr || !(v > y[i-1] && v >= y[i+1]) {
 			continue
 		}
-		if prominence(y, i, win) < pickProminence*sigma {
+		if prominence(y, i, win) < math.Max(pickProminence, minSNR)*sigma {
 			continue
 		}
 		l := refine(y, i)
