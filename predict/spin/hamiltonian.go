@@ -142,52 +142,163 @@ func transitions(spins []cspin, jm [][]float64, ngrp int) ([]rawLine, error) {
 	return out, nil
 }
 
+// Thresholds for reporting transitions (raw |<b|F−|a>|², of order 1 for an
+// allowed line) and group shares (relative to the transition).
+const (
+	forbidden = 1e-8 // weaker transitions are dropped
+	minShare  = 1e-4 // smaller shares go to the largest share of the line
+)
+
+// transition is one significant line (i in the upper block, j in the
+// lower) with its total amplitude a = <j|F−|i>.
+type transition struct {
+	i, j int
+	a    float64
+}
+
 // lines appends the transitions from block blk (eigen e0) to block blk+1
-// (eigen e1): A_g = V1ᵀ F−_g V0 for each group, A = Σ A_g; line (i → j) at
-// E0_i − E1_j with share A_g(j,i)·A(j,i) for group g.
+// (eigen e1): A = V1ᵀ F− V0; line (i → j) at E0_i − E1_j with intensity
+// A(j,i)², shared among groups as A_g(j,i)·A(j,i), A_g = V1ᵀ F−_g V0.
 func (b *basis) lines(blk int, e0, e1 eigen, ngrp int, out []rawLine) []rawLine {
 	d0, d1 := len(e0.vals), len(e1.vals)
-	w := make(map[int]*mat.Dense)
+	w := mat.NewDense(d1, d0, nil)
+	b.lowerInto(w, blk, e0, -1)
+	a := mat.NewDense(d1, d0, nil)
+	a.Mul(e1.vecs.T(), w)
+	var sig []transition
+	for j := 0; j < d1; j++ {
+		for i, v := range a.RawRowView(j) {
+			if v*v >= forbidden {
+				sig = append(sig, transition{i, j, v})
+			}
+		}
+	}
+	grps := b.groups()
+	shares := b.shares(blk, e0, e1, grps, sig, w, a)
+	g := len(grps)
+	for t, tr := range sig {
+		hz := e0.vals[tr.i] - e1.vals[tr.j]
+		sh := shares[t*g : (t+1)*g]
+		big, rest := 0, 0.0
+		for k, c := range sh {
+			if math.Abs(c) > math.Abs(sh[big]) {
+				big = k
+			}
+			if math.Abs(c) < minShare*tr.a*tr.a {
+				rest += c
+			}
+		}
+		for k, c := range sh {
+			if k == big {
+				c += rest
+			} else if math.Abs(c) < minShare*tr.a*tr.a {
+				continue
+			}
+			out = append(out, rawLine{hz: hz, inten: c, eg: grps[k]})
+		}
+	}
+	return out
+}
+
+// groups returns the cluster-local groups present among the spins.
+func (b *basis) groups() []int {
+	var gs []int
+	seen := map[int]bool{}
+	for _, s := range b.spins {
+		if !seen[s.grp] {
+			seen[s.grp] = true
+			gs = append(gs, s.grp)
+		}
+	}
+	return gs
+}
+
+// lowerInto sets w = F−_g V0 (all groups when g < 0), rows in block blk+1.
+func (b *basis) lowerInto(w *mat.Dense, blk int, e0 eigen, g int) {
+	w.Zero()
 	for i, s := range b.blocks[blk] {
 		row := e0.vecs.RawRowView(i)
+		for k, sp := range b.spins {
+			if (g >= 0 && sp.grp != g) || b.digit(s, k) == sp.twoF {
+				continue
+			}
+			c := lower(sp.twoF, b.m(s, k))
+			floats.AddScaled(w.RawRowView(b.pos[s+b.stride[k]]), c, row)
+		}
+	}
+}
+
+// shares returns, for each significant transition t and group k, the share
+// A_gk(j,i)·A(j,i) at index t·len(grps)+k. It uses one matrix product per
+// group, or for few transitions sums over the F−_g matrix elements per
+// transition, whichever is cheaper. w is scratch space.
+func (b *basis) shares(blk int, e0, e1 eigen, grps []int, sig []transition, w, a *mat.Dense) []float64 {
+	g := len(grps)
+	sh := make([]float64, len(sig)*g)
+	if g == 1 {
+		for t, tr := range sig {
+			sh[t] = tr.a * tr.a
+		}
+		return sh
+	}
+	d0, d1 := len(e0.vals), len(e1.vals)
+	perProduct := 2 * float64(d1) * float64(d1) * float64(d0) * float64(g-1)
+	perTransition := float64(len(sig)) * float64(d0) * float64(len(b.spins))
+	if perTransition < perProduct {
+		b.sharesDirect(blk, e0, e1, grps, sig, sh)
+		return sh
+	}
+	ag := mat.NewDense(d1, d0, nil)
+	for k, grp := range grps[:g-1] {
+		b.lowerInto(w, blk, e0, grp)
+		ag.Mul(e1.vecs.T(), w)
+		for t, tr := range sig {
+			sh[t*g+k] = ag.At(tr.j, tr.i) * tr.a
+		}
+	}
+	for t, tr := range sig {
+		last := tr.a * tr.a
+		for k := 0; k < g-1; k++ {
+			last -= sh[t*g+k]
+		}
+		sh[t*g+g-1] = last
+	}
+	return sh
+}
+
+// sharesDirect computes the shares transition by transition:
+// A_g(j,i) = Σ over states s and spins k of g of
+// <r|F−_k|s>·V1(r,j)·V0(s,i), with r = s lowered at k.
+func (b *basis) sharesDirect(blk int, e0, e1 eigen, grps []int, sig []transition, sh []float64) {
+	type elem struct {
+		s, r int
+		c    float64
+		k    int // index into grps
+	}
+	gi := map[int]int{}
+	for k, g := range grps {
+		gi[g] = k
+	}
+	var els []elem
+	for i, s := range b.blocks[blk] {
 		for k, sp := range b.spins {
 			if b.digit(s, k) == sp.twoF {
 				continue
 			}
-			wg := w[sp.grp]
-			if wg == nil {
-				wg = mat.NewDense(d1, d0, nil)
-				w[sp.grp] = wg
-			}
-			c := lower(sp.twoF, b.m(s, k))
-			floats.AddScaled(wg.RawRowView(b.pos[s+b.stride[k]]), c, row)
+			els = append(els, elem{i, b.pos[s+b.stride[k]], lower(sp.twoF, b.m(s, k)), gi[sp.grp]})
 		}
 	}
-	ag := make([]*mat.Dense, ngrp)
-	total := mat.NewDense(d1, d0, nil)
-	for g, wg := range w {
-		a := mat.NewDense(d1, d0, nil)
-		a.Mul(e1.vecs.T(), wg)
-		ag[g] = a
-		total.Add(total, a)
-	}
-	const thr = 1e-10 // |<j|F−|i>|² below this is a forbidden line
-	for j := 0; j < d1; j++ {
-		trow := total.RawRowView(j)
-		for i, a := range trow {
-			if a*a < thr {
-				continue
-			}
-			hz := e0.vals[i] - e1.vals[j]
-			for g, m := range ag {
-				if m == nil {
-					continue
-				}
-				if c := m.At(j, i) * a; math.Abs(c) > minIntensity {
-					out = append(out, rawLine{hz: hz, inten: c, eg: g})
-				}
-			}
+	var v0t, v1t mat.Dense
+	v0t.CloneFrom(e0.vecs.T())
+	v1t.CloneFrom(e1.vecs.T())
+	g := len(grps)
+	for t, tr := range sig {
+		x, y := v0t.RawRowView(tr.i), v1t.RawRowView(tr.j)
+		for _, e := range els {
+			sh[t*g+e.k] += e.c * y[e.r] * x[e.s]
+		}
+		for k := 0; k < g; k++ {
+			sh[t*g+k] *= tr.a
 		}
 	}
-	return out
 }

