@@ -3,6 +3,7 @@ package smiles
 import (
 	"fmt"
 	"strconv"
+	"unicode/utf8"
 
 	"shiftwise/graph"
 )
@@ -37,7 +38,8 @@ func (b *bracketScanner) found() string {
 	if c == 0 {
 		return "end of bracket atom"
 	}
-	return fmt.Sprintf("'%c'", c)
+	r, _ := utf8.DecodeRuneInString(b.lit[b.i:])
+	return fmt.Sprintf("%q", r)
 }
 
 // digits reads up to max decimal digits; ok is false when there are none.

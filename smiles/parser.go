@@ -39,6 +39,7 @@ func ParseWithOptions(s string, opt Options) (*graph.Mol, []Warning, error) {
 		return nil, p.warns, p.errs
 	}
 	m := p.build()
+	p.checkBondDirs(m)
 	if !opt.NoPerceive {
 		for _, e := range m.PerceiveAll() {
 			pos := e.Pos

@@ -3,6 +3,7 @@ package smiles
 import (
 	"fmt"
 	"strings"
+	"unicode/utf8"
 
 	"shiftwise/graph"
 )
@@ -151,10 +152,13 @@ func (s *scanner) scanIllegal() (int, token, string) {
 		return pos, tILLEGAL, s.src[pos:s.off]
 	}
 	if c >= 0x80 {
-		r := []rune(s.src[pos:min(len(s.src), pos+4)])[0]
-		n := len(string(r))
+		r, n := utf8.DecodeRuneInString(s.src[pos:])
 		s.off += n
-		s.error(pos, fmt.Sprintf("unexpected character %q", r))
+		if r == utf8.RuneError {
+			s.error(pos, fmt.Sprintf("unexpected byte %#x (not UTF-8 text)", s.src[pos]))
+		} else {
+			s.error(pos, fmt.Sprintf("unexpected character %q", r))
+		}
 		return pos, tILLEGAL, s.src[pos:s.off]
 	}
 	s.off++
@@ -193,7 +197,8 @@ func (s *scanner) describeAt(i int) string {
 	if isSpace(s.src[i]) {
 		return "space"
 	}
-	return fmt.Sprintf("'%c'", s.src[i])
+	r, _ := utf8.DecodeRuneInString(s.src[i:])
+	return fmt.Sprintf("%q", r)
 }
 
 func isDigit(c byte) bool { return c >= '0' && c <= '9' }

@@ -185,3 +185,37 @@ func equalInts(a, b []int) bool {
 	}
 	return true
 }
+
+// Conflicting up/down marks (spec 3.9.3: C/C(\F)=C/F is invalid) drop the
+// geometry with a warning, as RDKit does; consistent marks stay.
+func TestConflictingBondDirs(t *testing.T) {
+	t.Parallel()
+	m, warns, err := ParseWithOptions(`C/C(\F)=C/F`, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(warns) != 1 || !contains(warns[0].Msg, "conflicting") {
+		t.Errorf("warnings %v, want one about conflicting marks", warns)
+	}
+	for _, b := range m.Bonds {
+		if b.Dir != graph.DirNone {
+			t.Errorf("bond %d-%d keeps mark %v", b.A, b.B, b.Dir)
+		}
+	}
+	for _, s := range []string{`F/C=C/F`, `C(\F)=C/F`, `F/C(CC)=C/F`, `C/C(/F)=C/F`} {
+		m, warns, err := ParseWithOptions(s, Options{})
+		if err != nil || len(warns) != 0 {
+			t.Errorf("%s: err %v, warnings %v", s, err, warns)
+			continue
+		}
+		marked := 0
+		for _, b := range m.Bonds {
+			if b.Dir != graph.DirNone {
+				marked++
+			}
+		}
+		if marked < 2 {
+			t.Errorf("%s: %d marked bonds left, want at least 2", s, marked)
+		}
+	}
+}
