@@ -87,7 +87,7 @@ func (t *Table) proton(v *view, p graph.Proton, solvent string) Estimate {
 		t.carbon(v, p, &a)
 	case "O", "N", "S":
 		est.Exchangeable = true
-		t.exchangeable(v, p.Atom, sol, &a)
+		t.exchangeable(v, p.Atom, sol, !known, &a)
 		return t.finish(a, est, true)
 	default:
 		a.base("H on "+v.el(p.Atom)+": no rule, generic", t.row("special", "fallback-other"))

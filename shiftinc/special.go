@@ -1,6 +1,9 @@
 package shiftinc
 
-import "fmt"
+import (
+	"fmt"
+	"math"
+)
 
 // formyl handles H on a carbon doubly bonded to O, S or N: aldehydes,
 // formates, formamides, thioformyl and imines.
@@ -102,13 +105,25 @@ func (t *Table) alkyne(v *view, c int, a *acc) {
 }
 
 // exchangeable handles H on O, N and S with solvent-dependent values.
-func (t *Table) exchangeable(v *view, x int, sol string, a *acc) {
+func (t *Table) exchangeable(v *view, x int, sol string, unknown bool, a *acc) {
 	key := v.exchangeKey(x)
 	r := t.row("exchangeable", key)
 	if r == nil {
 		a.base("H on "+v.el(x)+": no rule, generic", t.row("special", "fallback-other"))
 		a.low = true
 		return
+	}
+	if unknown {
+		// Solvent not known: midway between CDCl3 and DMSO-d6, the two
+		// usual solvents, with the half-difference added to the SD.
+		if d, ok := r.BySolvent["DMSO-d6"]; ok {
+			mid, half := (r.PPM+d.PPM)/2, math.Abs(d.PPM-r.PPM)/2
+			sd := math.Sqrt((r.SD*r.SD+d.SD*d.SD)/2 + half*half)
+			a.ppm += mid
+			a.v += sd * sd
+			a.rules = append(a.rules, fmt.Sprintf("%s %.2f (exchangeable; solvent unknown: between CDCl3 %.2f and DMSO-d6 %.2f)", key, mid, r.PPM, d.PPM))
+			return
+		}
 	}
 	if sv, ok := r.BySolvent[sol]; ok {
 		a.ppm += sv.PPM
@@ -207,9 +222,22 @@ func (v *view) nhKey(n int) string {
 		}
 		return "NH-lactam"
 	}
-	var nCO, nSO2, nAr int
-	urea := false
+	var nCO, nSO2, nAr, nHetAr int
+	urea, hydrazone, amidine, enamine, chelated := false, false, false, false, false
 	for _, y := range v.m.Neighbors(n) {
+		switch {
+		case v.el(y) == "N" && v.doubleTo(y) >= 0:
+			hydrazone = true
+		case v.el(y) == "C" && !v.arom1(y) && v.doubleTo(y, "N") >= 0:
+			amidine = true
+		case v.el(y) == "C" && !v.arom1(y) && v.doubleTo(y, "C") >= 0:
+			z := v.doubleTo(y, "C")
+			for _, w := range v.m.Neighbors(z) {
+				if w != y && (v.carbonyl(w) || v.tripleTo(w) >= 0 || v.el(w) == "N" && v.m.Atoms[w].Charge > 0) {
+					enamine = true
+				}
+			}
+		}
 		switch {
 		case v.carbonyl(y):
 			nCO++
@@ -222,6 +250,12 @@ func (v *view) nhKey(n int) string {
 			nSO2++
 		case v.arom1(y):
 			nAr++
+			if r := v.aromRing(y); r != nil && heteroRing(v, r) {
+				nHetAr++
+			}
+			if v.orthoCarbonyl(y) || v.orthoNitro(y) {
+				chelated = true
+			}
 		}
 	}
 	switch {
@@ -229,6 +263,10 @@ func (v *view) nhKey(n int) string {
 		return "NH-sulfonamide"
 	case nCO >= 2:
 		return "NH-imide"
+	case nCO >= 1 && hydrazone:
+		return "NH-hydrazide"
+	case hydrazone:
+		return "NH-hydrazone"
 	case nCO == 1 && urea:
 		return "NH-urea"
 	case nCO == 1 && nAr > 0:
@@ -237,6 +275,16 @@ func (v *view) nhKey(n int) string {
 		return "NH2-amide"
 	case nCO == 1:
 		return "NH-amide"
+	case amidine:
+		return "NH-amidine"
+	case enamine:
+		return "NH-enamine"
+	case nHetAr > 0:
+		return "NH-heteroarylamine"
+	case nAr >= 2:
+		return "NH-diarylamine"
+	case nAr > 0 && chelated:
+		return "NH-aniline-chelated"
 	case nAr > 0:
 		return "NH-aniline"
 	case v.doubleTo(n) >= 0:
@@ -245,4 +293,20 @@ func (v *view) nhKey(n int) string {
 		return "NH2-amine"
 	}
 	return "NH-amine"
+}
+
+// orthoNitro reports whether an aromatic atom has a ring neighbour
+// carrying a nitro group.
+func (v *view) orthoNitro(a int) bool {
+	for _, b := range v.m.Neighbors(a) {
+		if !v.arom1(b) {
+			continue
+		}
+		for _, z := range v.m.Neighbors(b) {
+			if z != a && v.el(z) == "N" && v.m.Atoms[z].Charge > 0 && v.doubleTo(z, "O") >= 0 {
+				return true
+			}
+		}
+	}
+	return false
 }
