@@ -107,3 +107,7 @@ func Main(args []string, f *Factory) int {
 	fmt.Fprintln(f.Err, "shiftwise:", err)
 	return exitError
 }
+
+// version is the shiftwise version recorded in reports; set at build time
+// with -ldflags "-X main.version=...".
+var version = "dev"
