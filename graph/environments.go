@@ -39,7 +39,11 @@ type Environment struct {
 //     written @ or @@, or an sp3 atom with four substituents of different
 //     class), or (b) it lies in a ring of at most 8 atoms whose two faces
 //     differ: another sp3 ring member carries two different groups outside
-//     the ring (methylcyclohexane, cyclohexanol, decalin);
+//     the ring (methylcyclohexane, cyclohexanol, decalin), or (c) it is one
+//     of two like groups on a prochiral centre, or bonded to one (the OCH2
+//     of CH3CH(OCH2CH3)2 or of (EtO)2P(S)OAr, the CH2 of 3-pentylamine).
+//     Stereocentres include written @/@@ marks, saturated atoms with four
+//     different groups and sulfoxides with two different groups;
 //   - the two H of a primary amide NH2 (cis and trans to O).
 //
 // Ethyl groups of achiral molecules, cyclohexane and cyclohexanone are not

@@ -7,6 +7,10 @@ import "slices"
 // groups are distinct, and whether the members of a set are magnetically
 // equivalent.
 
+// stereoReach is how many bonds from a stereocentre a CH2 (or a pair of
+// like groups) is still taken as diastereotopic.
+const stereoReach = 2
+
 // diastereotopic reports whether the two hydrogens of atom c are
 // diastereotopic by the conservative rule documented on Environments.
 func (m *Mol) diastereotopic(c int, cls []int) bool {
@@ -15,12 +19,16 @@ func (m *Mol) diastereotopic(c int, cls []int) bool {
 		return false
 	}
 	nb := m.Neighbors(c)
+	dist := m.symDistances(c)
 	if cls[nb[0]] != cls[nb[1]] {
-		for x, d := range m.symDistances(c) {
-			if d >= 1 && d <= 2 && m.stereocentre(x, cls) {
+		for x, d := range dist {
+			if d >= 1 && d <= stereoReach && m.stereocentre(x, cls) {
 				return true
 			}
 		}
+	}
+	if m.nextToProchiral(c, dist, cls) {
+		return true
 	}
 	ring := m.envSmallestRing(c, nb[0], nb[1])
 	if ring == nil || len(ring) > 8 {
@@ -61,21 +69,131 @@ func (m *Mol) stereocentre(x int, cls []int) bool {
 	if at.Chiral != ChiralNone {
 		return true
 	}
-	h := at.HCount()
-	if h > 1 || m.Degree(x)+h != 4 || !m.envSingleBonded(x) {
+	if m.sulfoxide(x) {
+		nb := m.Neighbors(x)
+		var r []int
+		for _, o := range nb {
+			if m.Atoms[o].Element != "O" || m.Degree(o) != 1 {
+				r = append(r, cls[o])
+			}
+		}
+		return len(r) == 2 && r[0] != r[1]
+	}
+	if !m.tetrahedral(x) {
 		return false
 	}
 	seen := map[int]bool{}
-	if h == 1 {
-		seen[-1] = true
-	}
-	for _, o := range m.Neighbors(x) {
-		if seen[cls[o]] {
+	for _, c := range m.positions(x, cls) {
+		if seen[c] {
 			return false
 		}
-		seen[cls[o]] = true
+		seen[c] = true
 	}
 	return true
+}
+
+// sulfoxide reports whether x is the pyramidal S of a sulfoxide: three
+// neighbours, one of them a doubly bonded O.
+func (m *Mol) sulfoxide(x int) bool {
+	if m.Atoms[x].Element != "S" || m.Degree(x) != 3 || m.Atoms[x].HCount() != 0 {
+		return false
+	}
+	n := 0
+	for _, bi := range m.adj[x] {
+		b := &m.Bonds[bi]
+		if b.Order == 2 && m.Atoms[b.Other(x)].Element == "O" {
+			n++
+		}
+	}
+	return n == 1
+}
+
+// tetrahedral reports whether x holds four positions in a tetrahedron that
+// do not exchange: a saturated C or Si, a quaternary N+, or a P or S with
+// four neighbours (phosphates, thiophosphates, phosphonium, sulfones).
+func (m *Mol) tetrahedral(x int) bool {
+	at := &m.Atoms[x]
+	n := m.Degree(x) + at.HCount()
+	if n != 4 || at.Aromatic {
+		return false
+	}
+	switch at.Element {
+	case "C", "Si":
+		return m.envSingleBonded(x)
+	case "N":
+		return at.Charge == 1 && m.envSingleBonded(x)
+	case "P", "S":
+		return m.Degree(x) == 4
+	}
+	return false
+}
+
+// positions lists the symmetry classes of the four positions of x, -1 for
+// each hydrogen.
+func (m *Mol) positions(x int, cls []int) []int {
+	var p []int
+	for i := 0; i < m.Atoms[x].HCount(); i++ {
+		p = append(p, -1)
+	}
+	for _, o := range m.Neighbors(x) {
+		p = append(p, cls[o])
+	}
+	return p
+}
+
+// prochiralPair returns the two like groups of a tetrahedral atom x whose
+// other two positions differ from each other and from the pair: the
+// situation that makes the two groups, and the two H of a CH2 within
+// either, diastereotopic (CH3CH(OCH2CH3)2, the OCH2 of (EtO)2P(S)OAr).
+func (m *Mol) prochiralPair(x int, cls []int) (int, int, bool) {
+	if !m.tetrahedral(x) {
+		return 0, 0, false
+	}
+	nb := m.Neighbors(x)
+	g1, g2 := -1, -1
+	for i, a := range nb {
+		for _, b := range nb[i+1:] {
+			if cls[a] == cls[b] {
+				if g1 >= 0 {
+					return 0, 0, false // three like groups, or two pairs
+				}
+				g1, g2 = a, b
+			}
+		}
+	}
+	if g1 < 0 {
+		return 0, 0, false
+	}
+	var rest []int
+	for _, c := range m.positions(x, cls) {
+		if c != cls[g1] {
+			rest = append(rest, c)
+		}
+	}
+	if len(rest) != 2 || rest[0] == rest[1] {
+		return 0, 0, false
+	}
+	return g1, g2, true
+}
+
+// nextToProchiral reports whether CH2 atom c is one of the like groups of a
+// prochiral centre, or bonded to one (dist are the distances from c).
+func (m *Mol) nextToProchiral(c int, dist []int, cls []int) bool {
+	for x, d := range dist {
+		if d < 1 || d > 2 {
+			continue
+		}
+		g1, g2, ok := m.prochiralPair(x, cls)
+		if !ok {
+			continue
+		}
+		for _, g := range []int{g1, g2} {
+			if g == c || (d == 2 && m.BondBetween(g, c) >= 0) {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // faceDifferentiating reports whether ring atom r (of the ring whose atoms
@@ -303,49 +421,40 @@ func (m *Mol) amidePair(x int, cls []int) (int, int, bool) {
 	return g[0], g[1], true
 }
 
-// diastereotopicPair returns two like groups on sp3 carbon x that are
-// diastereotopic by the rule documented on envPairTags.
+// diastereotopicPair returns the two like groups of a prochiral carbon x
+// (see prochiralPair) when they are diastereotopic by the rule documented
+// on envPairTags.
 func (m *Mol) diastereotopicPair(x int, cls []int) (int, int, bool) {
-	at := &m.Atoms[x]
-	h := at.HCount()
-	if at.Element != "C" || m.Degree(x)+h != 4 || h > 1 || !m.envSingleBonded(x) {
+	if m.Atoms[x].Element != "C" {
 		return 0, 0, false
 	}
-	nb := m.Neighbors(x)
-	g1, g2, rest := -1, -1, []int(nil)
-	for i, a := range nb {
-		for _, b := range nb[i+1:] {
-			if cls[a] == cls[b] {
-				if g1 >= 0 {
-					return 0, 0, false // three like groups, or two pairs
-				}
-				g1, g2 = a, b
-			}
-		}
-	}
-	if g1 < 0 {
+	g1, g2, ok := m.prochiralPair(x, cls)
+	if !ok {
 		return 0, 0, false
-	}
-	for _, a := range nb {
-		if a != g1 && a != g2 {
-			rest = append(rest, a)
-		}
 	}
 	if m.nearStereocentre(x, g1, g2, cls) {
 		return g1, g2, true
 	}
-	if h == 0 && len(rest) == 2 {
-		ring := m.envSmallestRing(x, rest[0], rest[1])
-		if ring != nil && len(ring) <= 8 && !slices.Contains(ring, g1) && !slices.Contains(ring, g2) {
-			in := make(map[int]bool, len(ring))
-			for _, r := range ring {
-				in[r] = true
-			}
-			for _, r := range ring {
-				if r != x && m.faceDifferentiating(r, in, cls) {
-					return g1, g2, true
-				}
-			}
+	var rest []int
+	for _, a := range m.Neighbors(x) {
+		if a != g1 && a != g2 {
+			rest = append(rest, a)
+		}
+	}
+	if len(rest) != 2 {
+		return 0, 0, false
+	}
+	ring := m.envSmallestRing(x, rest[0], rest[1])
+	if ring == nil || len(ring) > 8 || slices.Contains(ring, g1) || slices.Contains(ring, g2) {
+		return 0, 0, false
+	}
+	in := make(map[int]bool, len(ring))
+	for _, r := range ring {
+		in[r] = true
+	}
+	for _, r := range ring {
+		if r != x && m.faceDifferentiating(r, in, cls) {
+			return g1, g2, true
 		}
 	}
 	return 0, 0, false
@@ -362,7 +471,7 @@ func (m *Mol) nearStereocentre(x, g1, g2 int, cls []int) bool {
 		count[c]++
 	}
 	for y, d := range m.symDistances(x) {
-		if d >= 1 && d <= 2 && y != g1 && y != g2 && count[cls[y]] == 1 && m.stereocentre(y, cls) {
+		if d >= 1 && d <= stereoReach && y != g1 && y != g2 && count[cls[y]] == 1 && m.stereocentre(y, cls) {
 			return true
 		}
 	}
