@@ -131,7 +131,7 @@ func (br *blockReader) meta() error {
 	s := &Spectrum{Nucleus: "1H", Source: br.file}
 	br.s = s
 	if r := br.b.find("TITLE"); r != nil {
-		s.Title = r.value
+		s.Title = strings.ReplaceAll(r.fullValue(), "\n", " ")
 	}
 	if r := br.b.find("DATATYPE"); r != nil {
 		dt := strings.ToUpper(r.value)

@@ -458,3 +458,19 @@ func TestFirstYWarning(t *testing.T) {
 		t.Errorf("warnings %q", s.Warnings)
 	}
 }
+
+// TestMultiLineValues: a value may continue on the following lines (JCAMP-DX
+// labelled data records end at the next "##"; McDonald & Wilks 1988 §4,
+// value from memory of the rule).
+func TestMultiLineValues(t *testing.T) {
+	t.Parallel()
+	src := strings.Replace(ntuplesSrc("NMR SPECTRUM", "3, 3, 3, 2", "HZ"), "##SYMBOL=X, R, I, N\n", "##SYMBOL=X,\n  R, $$ real\n  I, N\n", 1)
+	src = strings.Replace(src, "##TITLE=n\n", "##TITLE=first line\n  second line\n", 1)
+	s, err := ReadJCAMP(strings.NewReader(src), "ml.jdx")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if s.Title != "first line second line" || !equalFloats(s.Y, []float64{6, 4, 2}) {
+		t.Errorf("title %q, y %v", s.Title, s.Y)
+	}
+}
