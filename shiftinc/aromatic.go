@@ -157,6 +157,34 @@ func (t *Table) aromatic(v *view, c int, a *acc) {
 		}
 	}
 	t.ringSubstituents(v, r, c, fw, bw, scale, a)
+	t.peri(v, r, c, a)
+}
+
+// peri adds the effect of a substituent at the peri position: c's ring
+// neighbour f is shared with a fused ring, and the substituent sits on
+// f's neighbour p in that other ring (H8 and C1 of naphthalene, H5 and C3
+// of indolizine).
+func (t *Table) peri(v *view, r []int, c int, a *acc) {
+	for _, f := range v.m.Neighbors(c) {
+		if !slices.Contains(r, f) {
+			continue
+		}
+		p := v.fusedPartner(r, f)
+		if p < 0 {
+			continue
+		}
+		for _, x := range v.m.Neighbors(p) {
+			if x == f || v.shareAromRing(p, x) {
+				continue
+			}
+			if v.order(p, x) == 2 {
+				continue
+			}
+			if row := t.lookup("peri", v.classify(p, x)); row != nil && row.Key != "other" {
+				a.add("peri-"+row.Key, row.PPM, row.SD)
+			}
+		}
+	}
 }
 
 // azaFallback handles a six-membered aromatic ring with no pattern (and no

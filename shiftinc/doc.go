@@ -59,6 +59,7 @@
 //	[[alkene]]        key, gem, cis, trans
 //	[[benzene]]       key, ortho, meta, para
 //	[[hetero]]        key, ring, ppm      ring pattern, see tables/hetero.toml
+//	[[peri]]          key, ppm            peri substituent on fused aromatics
 //	[[special]]       key, ppm            CHO-*, HCOO, HCON, CH=N*, ≡CH-*, fallback-*
 //	[[exchangeable]]  key, ppm, by_solvent = { "DMSO-d6" = { ppm = …, sd = … } }
 //	[[solvent]]       key, offset, extra_sd, aliases

@@ -85,11 +85,12 @@ type rawFile struct {
 	Special      []Row              `toml:"special"`
 	Exchangeable []Row              `toml:"exchangeable"`
 	Solvent      []Row              `toml:"solvent"`
+	Peri         []Row              `toml:"peri"`
 }
 
 // sections lists the array-of-table sections in file order.
 var sections = []string{"solvent", "base", "alpha", "beta", "ring", "alkene",
-	"benzene", "hetero", "special", "exchangeable"}
+	"benzene", "hetero", "peri", "special", "exchangeable"}
 
 func (f *rawFile) section(name string) []Row {
 	switch name {
@@ -113,6 +114,8 @@ func (f *rawFile) section(name string) []Row {
 		return f.Exchangeable
 	case "solvent":
 		return f.Solvent
+	case "peri":
+		return f.Peri
 	}
 	return nil
 }
