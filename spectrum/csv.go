@@ -14,7 +14,7 @@ import (
 //   - '#' starts a comment line; blank lines are skipped;
 //   - the separator is the first of tab, ';', ',' found in the first data
 //     line, else blanks; with ';' a decimal comma is accepted;
-//   - a first line whose first field is not a number is a header; its
+//   - a first line with a field that is not a number is a header; its
 //     names may reorder the columns (ppm/shift, intensity/height, width);
 //   - two columns with at least minTraceRows rows whose ppm steps are
 //     (nearly all) equal form a trace; a row that breaks an otherwise even
@@ -94,7 +94,7 @@ func (t *csvTable) addLine(num int, text string) error {
 		t.sep = pickSep(text)
 	}
 	fields := t.split(text)
-	if t.cols == 0 && t.header == nil && !startsNumeric(fields[0]) {
+	if t.cols == 0 && t.header == nil && !t.allNumeric(fields) {
 		t.header = fields
 		t.mapHeader()
 		return nil
@@ -166,12 +166,15 @@ func (t *csvTable) number(f string) (float64, error) {
 	return v, err
 }
 
-func startsNumeric(f string) bool {
-	if f == "" {
-		return false
+// allNumeric reports whether every field is a number (else the first line
+// is a header).
+func (t *csvTable) allNumeric(fields []string) bool {
+	for _, f := range fields {
+		if _, err := t.number(f); err != nil {
+			return false
+		}
 	}
-	c := f[0]
-	return isDigit(c) || c == '.' || c == '+' || c == '-'
+	return true
 }
 
 // decimals counts the digits after the decimal point (or comma).

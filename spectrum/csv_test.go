@@ -126,3 +126,11 @@ func TestReadFileDetects(t *testing.T) {
 		t.Error("IsJCAMP misdetects")
 	}
 }
+
+func TestReadCSVHeaderStartingWithDigit(t *testing.T) {
+	t.Parallel()
+	s, err := ReadCSV(strings.NewReader("1H shift (ppm),height\n1.2,3\n"), "h.csv")
+	if err != nil || len(s.PeakTable) != 1 || s.PeakTable[0] != (Peak{PPM: 1.2, Intensity: 3}) {
+		t.Errorf("%v %+v", err, s)
+	}
+}
