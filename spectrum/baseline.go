@@ -35,9 +35,38 @@ const (
 
 // whittaker solves (W + λDᵀD) z = W y for the second-difference penalty D
 // and writes z into dst, which must have len(y). It returns false when the
-// system is singular (fewer than two weighted points, or a numerical
+// system is singular (fewer than three weighted points, or a numerical
 // breakdown).
 func whittaker(dst, y, w []float64, lambda float64) bool {
+	return newSmoother(len(y), lambda).solve(dst, y, w)
+}
+
+// smoother holds the penalty bands and factorisation buffers of a Whittaker
+// smoother of fixed length, so that reweighting passes do not allocate.
+type smoother struct {
+	p0, p1, p2 []float64 // bands of λDᵀD: diagonal, first and second super-diagonal
+	d, l1, l2  []float64 // LDLᵀ: D, L[i][i-1], L[i][i-2]
+}
+
+func newSmoother(n int, lambda float64) *smoother {
+	s := &smoother{
+		p0: make([]float64, n), p1: make([]float64, n), p2: make([]float64, n),
+		d: make([]float64, n), l1: make([]float64, n), l2: make([]float64, n),
+	}
+	for i := 0; i < n-2; i++ {
+		// Row i of D is (1, -2, 1) at columns i, i+1, i+2; add its outer product.
+		s.p0[i] += lambda
+		s.p0[i+1] += 4 * lambda
+		s.p0[i+2] += lambda
+		s.p1[i] -= 2 * lambda
+		s.p1[i+1] -= 2 * lambda
+		s.p2[i] += lambda
+	}
+	return s
+}
+
+// solve writes the smoothed y with weights w into dst.
+func (s *smoother) solve(dst, y, w []float64) bool {
 	n := len(y)
 	if n < 3 {
 		copy(dst, y)
@@ -52,34 +81,16 @@ func whittaker(dst, y, w []float64, lambda float64) bool {
 	if weighted < 3 {
 		return false
 	}
-	// Bands of A = W + λDᵀD: a0 diagonal, a1 first, a2 second super-diagonal.
-	a0 := make([]float64, n)
-	a1 := make([]float64, n)
-	a2 := make([]float64, n)
-	for i := 0; i < n-2; i++ {
-		// Row i of D is (1, -2, 1) at columns i, i+1, i+2; add its outer product.
-		a0[i] += lambda
-		a0[i+1] += 4 * lambda
-		a0[i+2] += lambda
-		a1[i] -= 2 * lambda
-		a1[i+1] -= 2 * lambda
-		a2[i] += lambda
-	}
-	for i := range a0 {
-		a0[i] += w[i]
-	}
-	// LDLᵀ factorisation: d diagonal of D, L1[i] = L[i][i-1], L2[i] = L[i][i-2].
-	d := make([]float64, n)
-	L1 := make([]float64, n)
-	L2 := make([]float64, n)
+	d, L1, L2 := s.d, s.l1, s.l2
 	for i := 0; i < n; i++ {
-		di := a0[i]
+		di := s.p0[i] + w[i]
+		L1[i], L2[i] = 0, 0
 		if i >= 2 {
-			L2[i] = a2[i-2] / d[i-2]
+			L2[i] = s.p2[i-2] / d[i-2]
 			di -= L2[i] * L2[i] * d[i-2]
 		}
 		if i >= 1 {
-			c := a1[i-1]
+			c := s.p1[i-1]
 			if i >= 2 {
 				c -= L2[i] * L1[i-1] * d[i-2]
 			}
@@ -150,8 +161,9 @@ func estimateBaseline(y []float64, pointsPerPPM float64) baselineResult {
 	z := make([]float64, m)
 	r := make([]float64, m)
 	sigma := diffNoise(x)
+	sm := newSmoother(m, lambda)
 	for it := 0; it < baselineIter; it++ {
-		if !whittaker(z, x, w, lambda) {
+		if !sm.solve(z, x, w) {
 			// Too few signal-free blocks: fall back to the median level.
 			med := median(append([]float64(nil), x...))
 			for i := range z {

@@ -22,17 +22,61 @@ import (
 const madScale = 1.482602218505602
 
 // median returns the median of v, reordering v. It returns 0 for an empty
-// slice.
+// slice. It runs in linear expected time (quickselect).
 func median(v []float64) float64 {
 	n := len(v)
 	if n == 0 {
 		return 0
 	}
-	sort.Float64s(v)
+	hi := selectKth(v, n/2)
 	if n%2 == 1 {
-		return v[n/2]
+		return hi
 	}
-	return (v[n/2-1] + v[n/2]) / 2
+	// The lower middle is the largest value left of position n/2.
+	lo := v[0]
+	for _, x := range v[1 : n/2] {
+		lo = math.Max(lo, x)
+	}
+	return (lo + hi) / 2
+}
+
+// selectKth reorders v so that v[k] holds the value it would have if v were
+// sorted, with no larger value before it and no smaller one after it, and
+// returns v[k] (Hoare's quickselect with a median-of-three pivot).
+func selectKth(v []float64, k int) float64 {
+	lo, hi := 0, len(v)-1
+	for hi > lo {
+		if hi-lo < 16 {
+			sort.Float64s(v[lo : hi+1])
+			return v[k]
+		}
+		mid := lo + (hi-lo)/2
+		a, b, c := v[lo], v[mid], v[hi]
+		p := math.Max(math.Min(a, b), math.Min(math.Max(a, b), c))
+		i, j := lo, hi
+		for i <= j {
+			for v[i] < p {
+				i++
+			}
+			for v[j] > p {
+				j--
+			}
+			if i <= j {
+				v[i], v[j] = v[j], v[i]
+				i++
+				j--
+			}
+		}
+		switch {
+		case k <= j:
+			hi = j
+		case k >= i:
+			lo = i
+		default:
+			return v[k]
+		}
+	}
+	return v[k]
 }
 
 // madSigma is the MAD estimate of σ for the values of v (v is not changed).
