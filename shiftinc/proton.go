@@ -175,6 +175,11 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 				if keys[len(keys)-2] == "alkyl" {
 					continue
 				}
+				if v.h(x) == 0 {
+					// On a quaternary carbon (tert-butyl esters,
+					// carbamates, amides) some β effects are larger.
+					keys = append([]string{keys[0] + "-tert"}, keys...)
+				}
 				r := t.lookup("beta", keys)
 				if r.Key == "alkyl" {
 					continue
