@@ -1,11 +1,13 @@
 package graph
 
+import "slices"
+
 // Aromaticity perception on the Kekulé form.
 //
 // The model follows the one RDKit uses by default (documented in the RDKit
-// Book, "Aromaticity"): a ring, or a fused pair or triple of SSSR rings
-// sharing one bond, is aromatic when every atom is a candidate and the
-// π electrons sum to 4n+2. Per atom:
+// Book, "Aromaticity"): a ring, or a connected combination of up to six
+// fused rings, is aromatic when every atom is a candidate and the π
+// electrons sum to 4n+2 (see perceiveAromaticity). Per atom:
 //
 //   - a double bond that lies in a ring: 1 electron;
 //   - an exocyclic double bond to a more electronegative atom (C=O, C=N,
@@ -69,7 +71,15 @@ func (m *Mol) piElectrons(a int) int {
 }
 
 // perceiveAromaticity sets Atom.Aromatic and Bond.Aromatic from the Kekulé
-// orders and the SSSR.
+// orders and the rings.
+//
+// Rings whose atoms are all candidates are grouped into fused systems
+// (rings sharing a bond). In each system every connected combination of up
+// to six rings is tested, smallest first: the π electrons of the atoms that
+// lie in one or two of the combined rings (atoms shared by three rings have
+// no p orbital on the perimeter) must sum to 4n+2; if so, the atoms and
+// bonds of all rings of the combination are aromatic. This is the fused-ring
+// procedure of RDKit's default model, which we are checked against.
 func (m *Mol) perceiveAromaticity() {
 	for a := range m.Atoms {
 		m.Atoms[a].Aromatic = false
@@ -84,97 +94,153 @@ func (m *Mol) perceiveAromaticity() {
 	for a := range m.Atoms {
 		elec[a] = -2 // not computed
 	}
-	count := func(atoms []int) int {
-		sum := 0
-		for _, a := range atoms {
+	var cand []int
+	for ri, r := range m.rings {
+		ok := true
+		for _, a := range r {
 			if elec[a] == -2 {
 				elec[a] = m.piElectrons(a)
 			}
-			if elec[a] < 0 {
-				return -1
-			}
-			sum += elec[a]
+			ok = ok && elec[a] >= 0
 		}
-		return sum
-	}
-	arom := make([]bool, len(m.rings))
-	for ri, r := range m.rings {
-		if huckel(count(r)) {
-			arom[ri] = true
-			m.markAromatic(ri)
+		if ok {
+			cand = append(cand, ri)
 		}
 	}
-	m.fusedAromaticity(arom, count)
+	for _, sys := range m.fusedGroups(cand) {
+		m.aromaticSystem(sys, elec)
+	}
 }
 
 func huckel(n int) bool { return n >= 2 && (n-2)%4 == 0 }
 
-func (m *Mol) markAromatic(ri int) {
-	for _, a := range m.rings[ri] {
-		m.Atoms[a].Aromatic = true
+// maxFused is the largest number of rings combined in one Hückel test.
+const maxFused = 6
+
+// fusedGroups splits the candidate rings into groups joined by shared bonds.
+func (m *Mol) fusedGroups(cand []int) [][]int {
+	group := make([]int, len(cand))
+	for i := range group {
+		group[i] = -1
 	}
-	for _, bi := range m.ringBonds[ri] {
-		m.Bonds[bi].Aromatic = true
+	var out [][]int
+	for i := range cand {
+		if group[i] >= 0 {
+			continue
+		}
+		g := len(out)
+		group[i] = g
+		members := []int{i}
+		for k := 0; k < len(members); k++ {
+			for j := range cand {
+				if group[j] < 0 && sharedBonds(m.ringBonds[cand[members[k]]], m.ringBonds[cand[j]]) > 0 {
+					group[j] = g
+					members = append(members, j)
+				}
+			}
+		}
+		rings := make([]int, len(members))
+		for k, mi := range members {
+			rings[k] = cand[mi]
+		}
+		slices.Sort(rings)
+		out = append(out, rings)
+	}
+	return out
+}
+
+// aromaticSystem runs the Hückel test on the connected combinations of the
+// rings of one fused system.
+func (m *Mol) aromaticSystem(sys []int, elec []int) {
+	total := map[int]bool{}
+	for _, ri := range sys {
+		for _, b := range m.ringBonds[ri] {
+			total[b] = true
+		}
+	}
+	done := 0
+	mark := func(ri int) {
+		for _, a := range m.rings[ri] {
+			m.Atoms[a].Aromatic = true
+		}
+		for _, b := range m.ringBonds[ri] {
+			if !m.Bonds[b].Aromatic {
+				m.Bonds[b].Aromatic = true
+				done++
+			}
+		}
+	}
+	occ := make(map[int]int)
+	comb := make([]int, 0, maxFused)
+	for k := 1; k <= min(len(sys), maxFused); k++ {
+		if done >= len(total) || (k > 2 && len(sys) > 300) {
+			return
+		}
+		forCombinations(len(sys), k, comb, func(idx []int) {
+			rs := make([]int, len(idx))
+			for i, x := range idx {
+				rs[i] = sys[x]
+			}
+			if k > 1 && !m.ringsConnected(rs) {
+				return
+			}
+			clear(occ)
+			for _, ri := range rs {
+				for _, a := range m.rings[ri] {
+					occ[a]++
+				}
+			}
+			sum := 0
+			for a, n := range occ {
+				if n <= 2 {
+					sum += elec[a]
+				}
+			}
+			if huckel(sum) {
+				for _, ri := range rs {
+					mark(ri)
+				}
+			}
+		})
 	}
 }
 
-// fusedAromaticity tests unions of two and three rings that share a bond
-// (azulene, and fused systems whose single rings fail the 4n+2 count).
-func (m *Mol) fusedAromaticity(arom []bool, count func([]int) int) {
-	nr := len(m.rings)
-	if nr < 2 || nr > 40 {
-		return
+// forCombinations calls f with every k-subset of 0..n-1 in lexicographic
+// order; buf is scratch space.
+func forCombinations(n, k int, buf []int, f func([]int)) {
+	idx := buf[:k]
+	for i := range idx {
+		idx[i] = i
 	}
-	shares := func(i, j int) bool { return sharedBonds(m.ringBonds[i], m.ringBonds[j]) == 1 }
-	union := func(rs ...int) []int {
-		seen := map[int]bool{}
-		var out []int
+	for {
+		f(idx)
+		i := k - 1
+		for i >= 0 && idx[i] == n-k+i {
+			i--
+		}
+		if i < 0 {
+			return
+		}
+		idx[i]++
+		for j := i + 1; j < k; j++ {
+			idx[j] = idx[j-1] + 1
+		}
+	}
+}
+
+// ringsConnected reports whether the rings form one fused group.
+func (m *Mol) ringsConnected(rs []int) bool {
+	reached := []int{rs[0]}
+	in := map[int]bool{rs[0]: true}
+	for i := 0; i < len(reached); i++ {
 		for _, r := range rs {
-			for _, a := range m.rings[r] {
-				if !seen[a] {
-					seen[a] = true
-					out = append(out, a)
-				}
-			}
-		}
-		return out
-	}
-	for i := 0; i < nr; i++ {
-		for j := i + 1; j < nr; j++ {
-			if (arom[i] && arom[j]) || !shares(i, j) {
-				continue
-			}
-			if huckel(count(union(i, j))) {
-				m.markAromatic(i)
-				m.markAromatic(j)
+			if !in[r] && sharedBonds(m.ringBonds[reached[i]], m.ringBonds[r]) > 0 {
+				in[r] = true
+				reached = append(reached, r)
 			}
 		}
 	}
-	if nr > 8 {
-		return
-	}
-	for i := 0; i < nr; i++ {
-		for j := i + 1; j < nr; j++ {
-			for k := j + 1; k < nr; k++ {
-				links := b2n(shares(i, j)) + b2n(shares(i, k)) + b2n(shares(j, k))
-				if links < 2 || (arom[i] && arom[j] && arom[k]) {
-					continue
-				}
-				if huckel(count(union(i, j, k))) {
-					m.markAromatic(i)
-					m.markAromatic(j)
-					m.markAromatic(k)
-				}
-			}
-		}
-	}
-}
-
-func b2n(b bool) int {
-	if b {
-		return 1
-	}
-	return 0
+	return len(reached) == len(rs)
 }
 
 func sharedBonds(x, y []int) int {
