@@ -258,7 +258,7 @@ func (ex *explanation) matchTable(ms []mplet, solv SolventInfo, scale float64) {
 			if sp.Kind == "reference" || ex.amounts[sp.Name] > 0 || ex.hasFound(sp.Name) {
 				continue
 			}
-			if h, ok := ex.tryTable(ms, sp, solv.Name); ok {
+			if h, ok := ex.tryTable(ms, sp, solv.Name, scale); ok {
 				hits = append(hits, h)
 			}
 		}
@@ -318,7 +318,19 @@ func sameMultiplets(a, b []int) bool {
 	return true
 }
 
-func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string) (tableHit, bool) {
+// minContaminantAmount is the smallest amount (molecules per compound
+// molecule, i.e. 0.1 mol %) at which a table contaminant is named; smaller
+// matches are coincidences with noise-level peaks more often than not. It
+// matches the usual 0.1 % impurity reporting level (ICH Q3A; value from
+// memory).
+const minContaminantAmount = 0.001
+
+// minIdentifySNR is the S/N a table contaminant's strongest matched peak
+// needs to be named: the quantitation limit S/N 10 of ICH Q2 (value from
+// memory).
+const minIdentifySNR = 10
+
+func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string, scale float64) (tableHit, bool) {
 	h := tableHit{sp: sp, ms: make([]int, len(sp.Signals)), water: sp.Kind == "water"}
 	used := map[int]bool{}
 	for k, sg := range sp.Signals {
@@ -364,6 +376,22 @@ func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string) (tableHi
 			}
 		}
 		if hi > 4*lo {
+			return h, false
+		}
+	}
+	if sp.Kind == "contaminant" {
+		area, snr, known := 0.0, 0.0, true
+		for _, j := range h.ms {
+			if j >= 0 {
+				area += ms[j].area
+				snr = math.Max(snr, ms[j].snr)
+				known = known && ms[j].snr > 0
+			}
+		}
+		if scale > 0 && area*scale/float64(h.gotH) < minContaminantAmount {
+			return h, false
+		}
+		if known && snr < minIdentifySNR {
 			return h, false
 		}
 	}

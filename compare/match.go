@@ -37,6 +37,7 @@ type mplet struct {
 	label    string // processing's label: spectrum.LabelSolvent, spectrum.LabelTMS or ""
 	part     bool   // absorbed into multiplet host as a second part of its signal
 	host     int
+	snr      float64 // largest S/N of its peaks; 0 when unknown
 }
 
 func prepMultiplets(pl *spectrum.PeakList) []mplet {
@@ -56,9 +57,21 @@ func prepMultiplets(pl *spectrum.PeakList) []mplet {
 		if from == 0 && to == 0 {
 			from, to = m.PPM, m.PPM
 		}
-		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: cleanMultiplicity(pl, m), j: m.JHz, label: m.Label})
+		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: cleanMultiplicity(pl, m), j: m.JHz, label: m.Label, snr: peakSNR(pl, m)})
 	}
 	return out
+}
+
+// peakSNR returns the largest S/N among the multiplet's peaks (0 if none
+// known).
+func peakSNR(pl *spectrum.PeakList, m spectrum.Multiplet) float64 {
+	best := 0.0
+	for _, k := range m.PeakIndex {
+		if k >= 0 && k < len(pl.Peaks) {
+			best = math.Max(best, pl.Peaks[k].SNR)
+		}
+	}
+	return best
 }
 
 // cleanMultiplicity reads a multiplet labelled "m" whose peaks are one tall

@@ -5,12 +5,18 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"path/filepath"
 	"strings"
 	"text/tabwriter"
+	"time"
 
 	"github.com/spf13/cobra"
 
 	"shiftwise/compare"
+	"shiftwise/graph"
+	"shiftwise/internal/atomicfile"
+	"shiftwise/report"
+	"shiftwise/smiles"
 )
 
 func init() { register("check", newCheckCmd) }
@@ -26,6 +32,7 @@ type checkOptions struct {
 	standardSignal            float64
 	minSNR                    float64
 	json                      bool
+	report                    string            // HTML report path, "" for none
 	predictor                 compare.Predictor // tests substitute hand-made predictions
 }
 
@@ -49,7 +56,7 @@ internal-standard qNMR equation and an uncertainty estimate.
 
 Output is a table on a terminal, tab-separated lines when piped, or JSON
 (--json) with the keys verdict, score, reasons, assignments, unexplained,
-missing, purity, candidates.
+missing, purity, candidates. --report FILE also writes an HTML report.
 
 The automated result is advisory: release of material follows the lab's own
 procedures and qualified review.`
@@ -84,6 +91,7 @@ func newCheckCmd(f *Factory) *cobra.Command {
 	fl.Float64Var(&o.standardSignal, "standard-signal", 0, "shift of the standard's signal to integrate, ppm (default: its largest)")
 	fl.Float64Var(&o.minSNR, "min-snr", 0, "peak-picking threshold in noise SDs (default: processing's)")
 	fl.BoolVar(&o.json, "json", false, "print the result as JSON")
+	fl.StringVar(&o.report, "report", "", "also write a self-contained HTML report to `FILE`")
 	cmd.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return withCode(exitError, err) })
 	return cmd
 }
@@ -108,6 +116,16 @@ func runCheck(f *Factory, o *checkOptions) error {
 	if err := o.validate(); err != nil {
 		return withCode(exitError, err)
 	}
+	if o.predictor == nil {
+		for _, smi := range append([]string{o.smiles, o.standard}, o.impurities...) {
+			if smi == "" {
+				continue
+			}
+			if _, err := smiles.Parse(smi); err != nil {
+				return withCode(exitError, checkSmilesError(smi, err))
+			}
+		}
+	}
 	in := compare.Input{Smiles: o.smiles, SpectrumPath: o.spectrum, Candidates: o.candidates, Impurities: o.impurities}
 	if o.standard != "" {
 		in.Standard = &compare.Standard{Smiles: o.standard, MassMg: o.standardMass, SampleMassMg: o.sampleMass,
@@ -116,6 +134,15 @@ func runCheck(f *Factory, o *checkOptions) error {
 	res, err := compare.Check(in, compare.Options{FieldMHz: o.field, Solvent: o.solvent, MinSNR: o.minSNR, Predictor: o.predictor})
 	if err != nil {
 		return withCode(exitError, err)
+	}
+	if o.report != "" {
+		err := atomicfile.Write(o.report, 0o644, func(w io.Writer) error {
+			return report.Write(w, report.Sample{ID: strings.TrimSuffix(filepath.Base(o.spectrum), filepath.Ext(o.spectrum)),
+				Spectrum: o.spectrum, Result: res, Created: time.Now()})
+		})
+		if err != nil {
+			return withCode(exitError, fmt.Errorf("check: writing report: %w", err))
+		}
 	}
 	if o.json {
 		enc := json.NewEncoder(f.Out)
@@ -136,6 +163,23 @@ func runCheck(f *Factory, o *checkOptions) error {
 	default:
 		return withCode(exitReview, nil)
 	}
+}
+
+// checkSmilesError formats a SMILES error with the input and a caret under
+// the offending column.
+func checkSmilesError(src string, err error) error {
+	pos := -1
+	if l, ok := smiles.AsList(err); ok && len(l) > 0 {
+		pos = l[0].Pos
+	}
+	var ae *graph.AtomError
+	if pos < 0 && errors.As(err, &ae) {
+		pos = ae.Pos
+	}
+	if pos < 0 {
+		return fmt.Errorf("check: %s: %w", src, err)
+	}
+	return fmt.Errorf("check: %v\n%s", err, smiles.Caret(src, pos))
 }
 
 func fmtPtr(p *float64, unit string) string {
