@@ -8,4 +8,93 @@
 //
 // The result is advisory: release of material follows the lab's own
 // procedures and qualified review (AdvisoryText).
+//
+// # Pipeline
+//
+// Check reads and processes the spectrum (spectrum.ReadFile,
+// spectrum.Process), predicts the structure (smiles.Parse, predict.Predict;
+// Options.Predictor replaces both), then for the intended structure and each
+// candidate:
+//
+//  1. Assignment. Predicted signals (rows) are matched to measured
+//     multiplets (columns) by a global minimum-cost assignment (Hungarian).
+//     A multiplet of about n H is offered as n columns, so several signals
+//     can share it (overlap); each signal also has a private "missing"
+//     column. The cost of signal i in multiplet j is z² (z = shift distance
+//     over the prediction's SD, floored at 0.08 ppm; linear beyond 3 SD),
+//     plus 1.5 × a multiplicity term (0 same pattern, 0.3 unknown or same
+//     line count, 0.4 unresolved small couplings, up to 3), a J term (beyond
+//     ±1.5 Hz), a log-ratio term for NH against the multiplet's H, and 1 per
+//     extra signal already in the multiplet. Missing costs 20 (about 5.7 SD);
+//     exchangeable protons (OH, NH, COOH) have SD ≥ 1.2 ppm, a light
+//     integral term and a missing cost of 2: broad, shifted or absent
+//     exchangeables are noted, not punished. The residual-solvent peak can
+//     take a signal at a cost of 4 (a compound line hidden under CHCl3).
+//  2. Integral scale. H per unit area is the H-weighted median of
+//     (assigned H)/(area) over the assigned multiplets, alternated with the
+//     assignment until it settles (at most 3 rounds); never one peak alone.
+//  3. Second parts. A free multiplet within 3 SD of a signal whose
+//     multiplet is clearly short of H, and no larger than the shortfall, is
+//     taken as a second part of it (amide rotamers, diastereotopic CH2).
+//  4. Explanation. Peaks not given to the compound are, in order: 13C
+//     satellites (55–110 Hz from a parent at least 20× larger, 0.15–1.5 %
+//     of it) or mirrored spinning sidebands (5–50 Hz, < 3 %), besides the
+//     artifacts processing flags itself; the internal standard and the
+//     --impurity structures (predicted, matched by a small assignment, at
+//     least half their H found); table species for the solvent
+//     (tables/impurities.toml: Gottlieb, Kotlyar & Nudelman 1997 and
+//     Fulmer et al. 2010, values from memory), whole sets first, a signal
+//     hidden under a compound multiplet counting towards the set, named
+//     only at ≥ 0.1 mol % with a peak of S/N ≥ 10; the rest is unknown. The
+//     excess of a compound multiplet holding clearly more H than assigned is
+//     listed as an unexplained part.
+//
+// # Scores and verdict
+//
+// Part scores, each 0–1: shifts (H-weighted mean of exp(−z²/8)), splitting
+// (mean of 1 − cost/3), integrals (1 − Σ|H measured − H expected|/Σ H
+// expected over compound multiplets, excess counted at half) and explained
+// (1 − unknown intensity/total intensity; residual solvent, TMS and
+// artifacts are left out of the total). The score is
+//
+//	(0.35·shifts + 0.20·splitting + 0.25·integrals + 0.20·explained)·(1 − m)²
+//
+// with m the fraction of non-exchangeable H whose signals are missing.
+//
+// Verdict: inconsistent when m > 0.10, when more than 20 % of the H sit
+// more than 4 SD from their multiplet, when the integral score is below
+// 0.60, or when the score is below 0.50. Review when any signal is missing,
+// any signal is more than 3 SD away, two or more signals (or over 20 % of
+// the H) have a clearly different multiplicity, the integral score is below
+// 0.80, unknown peaks hold more than 10 % of the intensity, the score is
+// below 0.75, or a candidate scores more than 0.05 higher. Consistent
+// otherwise. The thresholds were set on the synthetic reference set and the
+// real spectra of the tests (their measured rates are printed there).
+//
+// Every reason is a plain sentence ("signal C predicted at 4.12 q (2 H),
+// nearest measured multiplet 3.67 s (5.1 SD away)", "integral of the
+// aromatic region (6.3–9 ppm) is 4.0 H, 5 expected"). Cautions state the
+// limits that apply: low-confidence predictions, strongly coupled
+// (second-order) patterns below 400 MHz, exchangeables not seen, and the
+// integral assumptions.
+//
+// # Purity
+//
+// The molar composition counts the compound and the identified impurities
+// per molecule (area × scale / H matched), assuming equal response per
+// proton (full relaxation, flat baseline), and leaves out residual solvent,
+// water and unidentified peaks (their share is stated). With an internal
+// standard, QNMRPurity applies the qNMR equation and QNMRUncertainty
+// propagates the integral, weighing and purity uncertainties (see qnmr.go).
+//
+// # Candidates
+//
+// Each --candidate is scored against the same spectrum and ranked with the
+// intended structure; the signals that tell a lower-ranked structure apart
+// (missing, more than 3 SD away, clearly different multiplicity) are named.
+//
+// # Work cap
+//
+// At most 80 signals per structure and 20 candidates are scored; the
+// assignment matrix is then at most 80 × (8·multiplets + 80).
 package compare
