@@ -111,12 +111,13 @@ func (m *Mol) envBuild(k int, ps []Proton) Environment {
 	}
 }
 
-// envClasses refines the symmetry classes by double-bond geometry: each
-// carbon of a C=C gets, as an extra invariant, the sorted pairs (class of a
-// position on it, class of the position cis to it), hydrogens counting as -1.
-//
-// Pairs of like groups that NMR tells apart (see envPairTags) get a tag 1
-// or 2 as a further invariant.
+// envClasses refines the symmetry classes by double-bond geometry and by
+// pairs of like groups that NMR tells apart. Each carbon of a C=C gets, as
+// an extra invariant, the sorted pairs (class of a position on it, class of
+// the position cis to it), hydrogens counting as -1; each heavy substituent
+// of a C=C gets the class of the position cis to it (so the two CH3 of a
+// =C(CH3)2 group part when the other carbon carries two different groups);
+// pairs from envPairTags get a tag 1 or 2.
 func (m *Mol) envClasses(cls []int, bonds []alkBond) []int {
 	tags := m.envPairTags(cls)
 	if len(bonds) == 0 && tags == nil {
@@ -124,16 +125,31 @@ func (m *Mol) envClasses(cls []int, bonds []alkBond) []int {
 	}
 	cur := cls
 	for {
+		extra := make([][][]int, len(m.Atoms))
+		for _, ab := range bonds {
+			extra[ab.a] = append(extra[ab.a], alkDescriptor(ab.sa, ab.sb, cur))
+			extra[ab.b] = append(extra[ab.b], alkDescriptor(ab.sb, ab.sa, cur))
+			for i := range 2 {
+				if s := ab.sa[i].atom; s >= 0 {
+					extra[s] = append(extra[s], []int{-2, alkCode(ab.sb[i], cur)})
+				}
+				if s := ab.sb[i].atom; s >= 0 {
+					extra[s] = append(extra[s], []int{-2, alkCode(ab.sa[i], cur)})
+				}
+			}
+		}
 		init := make([][]int, len(m.Atoms))
 		for a := range init {
 			init[a] = []int{cls[a], 0}
 			if tags != nil {
 				init[a][1] = tags[a]
 			}
-		}
-		for _, ab := range bonds {
-			init[ab.a] = append(init[ab.a], alkDescriptor(ab.sa, ab.sb, cur)...)
-			init[ab.b] = append(init[ab.b], alkDescriptor(ab.sb, ab.sa, cur)...)
+			// Sorted, so that the order of the bonds does not matter.
+			slices.SortFunc(extra[a], slices.Compare[[]int])
+			for _, x := range extra[a] {
+				init[a] = append(init[a], len(x))
+				init[a] = append(init[a], x...)
+			}
 		}
 		next := m.symRefine(init)
 		if slices.Max(next) == slices.Max(cur) {

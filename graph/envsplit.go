@@ -345,9 +345,9 @@ func hetKey(dist int) int {
 // and everything in their branches:
 //
 //   - the two groups on an amide nitrogen, cis and trans to the carbonyl O
-//     (slow C–N rotation: the two N-CH3 of DMF and DMA give two signals);
-//     amides proper only: the carbonyl carbon carries H or carbon, not N or
-//     O (ureas and carbamates rotate faster and are left alone);
+//     (slow C–N rotation: the two N-CH3 of DMF and DMA give two signals),
+//     also in thioamides, carbamates and dithiocarbamates; ureas rotate
+//     faster and are left alone;
 //   - diastereotopic groups: two like groups on an sp3 carbon whose other
 //     two positions differ, when a stereocentre lies within two bonds (the
 //     isopropyl CH3 of valine and leucine), or when the carbon is in a ring
@@ -375,7 +375,8 @@ func (m *Mol) envPairTags(cls []int) []int {
 
 // amideN returns the acyl carbon of x when x is an amide nitrogen: neutral,
 // non-aromatic, singly bonded with three positions, bonded to a carbon that
-// is doubly bonded to O or S and otherwise carries only H or carbon.
+// is doubly bonded to O or S and carries no other nitrogen (amides,
+// thioamides, carbamates, dithiocarbamates; not ureas or guanidines).
 func (m *Mol) amideN(x int) (int, bool) {
 	at := &m.Atoms[x]
 	if at.Element != "N" || at.Charge != 0 || m.Degree(x)+at.HCount() != 3 || !m.envSingleBonded(x) {
@@ -392,7 +393,7 @@ func (m *Mol) amideN(x int) (int, bool) {
 			switch el := m.Atoms[o].Element; {
 			case b.Order == 2 && (el == "O" || el == "S"):
 				acyl = true
-			case o != x && el != "C":
+			case o != x && el == "N":
 				other = false
 			}
 		}
