@@ -90,12 +90,16 @@ func (m *Mol) perceiveAromaticity() {
 	if len(m.rings) == 0 {
 		return
 	}
+	rs := ringSet{
+		atoms: append(slices.Clip(m.rings), m.extraRings...),
+		bonds: append(slices.Clip(m.ringBonds), m.extraRingBonds...),
+	}
 	elec := make([]int, len(m.Atoms))
 	for a := range m.Atoms {
 		elec[a] = -2 // not computed
 	}
 	var cand []int
-	for ri, r := range m.rings {
+	for ri, r := range rs.atoms {
 		ok := true
 		for _, a := range r {
 			if elec[a] == -2 {
@@ -107,10 +111,13 @@ func (m *Mol) perceiveAromaticity() {
 			cand = append(cand, ri)
 		}
 	}
-	for _, sys := range m.fusedGroups(cand) {
-		m.aromaticSystem(sys, elec)
+	for _, sys := range rs.fusedGroups(cand) {
+		m.aromaticSystem(rs, sys, elec)
 	}
 }
+
+// ringSet is the SSSR plus its symmetrizing rings, as atoms and bonds.
+type ringSet struct{ atoms, bonds [][]int }
 
 func huckel(n int) bool { return n >= 2 && (n-2)%4 == 0 }
 
@@ -118,7 +125,7 @@ func huckel(n int) bool { return n >= 2 && (n-2)%4 == 0 }
 const maxFused = 6
 
 // fusedGroups splits the candidate rings into groups joined by shared bonds.
-func (m *Mol) fusedGroups(cand []int) [][]int {
+func (rs ringSet) fusedGroups(cand []int) [][]int {
 	group := make([]int, len(cand))
 	for i := range group {
 		group[i] = -1
@@ -133,7 +140,7 @@ func (m *Mol) fusedGroups(cand []int) [][]int {
 		members := []int{i}
 		for k := 0; k < len(members); k++ {
 			for j := range cand {
-				if group[j] < 0 && sharedBonds(m.ringBonds[cand[members[k]]], m.ringBonds[cand[j]]) > 0 {
+				if group[j] < 0 && sharedBonds(rs.bonds[cand[members[k]]], rs.bonds[cand[j]]) > 0 {
 					group[j] = g
 					members = append(members, j)
 				}
@@ -151,19 +158,19 @@ func (m *Mol) fusedGroups(cand []int) [][]int {
 
 // aromaticSystem runs the Hückel test on the connected combinations of the
 // rings of one fused system.
-func (m *Mol) aromaticSystem(sys []int, elec []int) {
+func (m *Mol) aromaticSystem(rs ringSet, sys []int, elec []int) {
 	total := map[int]bool{}
 	for _, ri := range sys {
-		for _, b := range m.ringBonds[ri] {
+		for _, b := range rs.bonds[ri] {
 			total[b] = true
 		}
 	}
 	done := 0
 	mark := func(ri int) {
-		for _, a := range m.rings[ri] {
+		for _, a := range rs.atoms[ri] {
 			m.Atoms[a].Aromatic = true
 		}
-		for _, b := range m.ringBonds[ri] {
+		for _, b := range rs.bonds[ri] {
 			if !m.Bonds[b].Aromatic {
 				m.Bonds[b].Aromatic = true
 				done++
@@ -177,16 +184,16 @@ func (m *Mol) aromaticSystem(sys []int, elec []int) {
 			return
 		}
 		forCombinations(len(sys), k, comb, func(idx []int) {
-			rs := make([]int, len(idx))
+			combo := make([]int, len(idx))
 			for i, x := range idx {
-				rs[i] = sys[x]
+				combo[i] = sys[x]
 			}
-			if k > 1 && !m.ringsConnected(rs) {
+			if k > 1 && !rs.connected(combo) {
 				return
 			}
 			clear(occ)
-			for _, ri := range rs {
-				for _, a := range m.rings[ri] {
+			for _, ri := range combo {
+				for _, a := range rs.atoms[ri] {
 					occ[a]++
 				}
 			}
@@ -197,7 +204,7 @@ func (m *Mol) aromaticSystem(sys []int, elec []int) {
 				}
 			}
 			if huckel(sum) {
-				for _, ri := range rs {
+				for _, ri := range combo {
 					mark(ri)
 				}
 			}
@@ -228,19 +235,19 @@ func forCombinations(n, k int, buf []int, f func([]int)) {
 	}
 }
 
-// ringsConnected reports whether the rings form one fused group.
-func (m *Mol) ringsConnected(rs []int) bool {
-	reached := []int{rs[0]}
-	in := map[int]bool{rs[0]: true}
+// connected reports whether the rings form one fused group.
+func (rs ringSet) connected(combo []int) bool {
+	reached := []int{combo[0]}
+	in := map[int]bool{combo[0]: true}
 	for i := 0; i < len(reached); i++ {
-		for _, r := range rs {
-			if !in[r] && sharedBonds(m.ringBonds[reached[i]], m.ringBonds[r]) > 0 {
+		for _, r := range combo {
+			if !in[r] && sharedBonds(rs.bonds[reached[i]], rs.bonds[r]) > 0 {
 				in[r] = true
 				reached = append(reached, r)
 			}
 		}
 	}
-	return len(reached) == len(rs)
+	return len(reached) == len(combo)
 }
 
 func sharedBonds(x, y []int) int {

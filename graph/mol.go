@@ -75,10 +75,12 @@ type Mol struct {
 	perceived bool
 	rings     [][]int // SSSR, atom indices in ring order
 	ringBonds [][]int // bond indices of each ring, parallel to rings
-	ringBond  []bool  // per bond: in some ring
-	atomRings [][]int // per atom: indices into rings
-	kekulized bool
-	pi        []bool // per atom: takes a double bond in the Kekulé form of a written aromatic system
+
+	extraRings, extraRingBonds [][]int // symmetrizing rings beyond the SSSR
+	ringBond                   []bool  // per bond: in some ring
+	atomRings                  [][]int // per atom: indices into rings
+	kekulized                  bool
+	pi                         []bool // per atom: takes a double bond in the Kekulé form of a written aromatic system
 }
 
 // AddAtom appends an atom and returns its index.

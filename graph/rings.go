@@ -13,12 +13,14 @@ import (
 // one ring is walked directly; otherwise the SSSR is picked from Horton's
 // candidate cycles (shortest path root→x, edge x–y, shortest path y→root)
 // by Gaussian elimination over GF(2), shortest first (Horton, SIAM J.
-// Comput. 16, 358, 1987). The set is then symmetrized (see symmetric).
+// Comput. 16, 358, 1987). Rings returns that SSSR. Aromaticity is perceived
+// on the symmetrized set, which adds equivalent rings (see symmetric).
 
 // findRings computes m.ringBond, m.rings, m.ringBonds and m.atomRings.
 func (m *Mol) findRings() {
 	m.ringBond = m.bridgesComplement()
 	m.rings, m.ringBonds = nil, nil
+	m.extraRings, m.extraRingBonds = nil, nil
 	for _, sys := range m.ringSystems() {
 		m.addSystemRings(sys)
 	}
@@ -142,9 +144,14 @@ func (m *Mol) addSystemRings(sys ringSystem) {
 		return
 	}
 	h := newHorton(m, sys)
-	for _, c := range h.sssr(nr) {
+	basis, extra := h.sssr(nr)
+	for _, c := range basis {
 		m.rings = append(m.rings, c.atoms)
 		m.ringBonds = append(m.ringBonds, c.bonds)
+	}
+	for _, c := range extra {
+		m.extraRings = append(m.extraRings, c.atoms)
+		m.extraRingBonds = append(m.extraRingBonds, c.bonds)
 	}
 }
 
@@ -194,8 +201,9 @@ func newHorton(m *Mol, sys ringSystem) *horton {
 	return h
 }
 
-// sssr returns nr independent cycles of smallest total size.
-func (h *horton) sssr(nr int) []cycle {
+// sssr returns nr independent cycles of smallest total size, and the extra
+// cycles that symmetrize the set (see symmetric).
+func (h *horton) sssr(nr int) (sssr, extra []cycle) {
 	cands := h.candidates()
 	slices.SortStableFunc(cands, func(x, y cycle) int { return len(x.bonds) - len(y.bonds) })
 	var basis [][]uint64
@@ -223,7 +231,7 @@ func (h *horton) sssr(nr int) []cycle {
 			break
 		}
 	}
-	return append(out, h.symmetric(cands, used, out)...)
+	return out, h.symmetric(cands, used, out)
 }
 
 // symmetric returns the dependent cycles that could stand in for an SSSR
