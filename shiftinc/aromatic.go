@@ -40,7 +40,7 @@ func (v *view) simpleToken(a int) string {
 	switch at.Element {
 	case "N":
 		if at.Charge > 0 {
-			for _, y := range v.m.Neighbors(a) {
+			for _, y := range v.nbrs(a) {
 				if v.el(y) == "O" && v.m.Atoms[y].Charge < 0 {
 					return "nO"
 				}
@@ -61,7 +61,7 @@ func (v *view) simpleToken(a int) string {
 // fusedPartner returns the neighbour of ring atom a that lies outside ring
 // r on an aromatic ring shared with a (a fused ring), or -1.
 func (v *view) fusedPartner(r []int, a int) int {
-	for _, x := range v.m.Neighbors(a) {
+	for _, x := range v.nbrs(a) {
 		if slices.Contains(r, x) || !v.arom1(x) {
 			continue
 		}
@@ -165,7 +165,7 @@ func (t *Table) aromatic(v *view, c int, a *acc) {
 // f's neighbour p in that other ring (H8 and C1 of naphthalene, H5 and C3
 // of indolizine).
 func (t *Table) peri(v *view, r []int, c int, a *acc) {
-	for _, f := range v.m.Neighbors(c) {
+	for _, f := range v.nbrs(c) {
 		if !slices.Contains(r, f) {
 			continue
 		}
@@ -173,7 +173,7 @@ func (t *Table) peri(v *view, r []int, c int, a *acc) {
 		if p < 0 {
 			continue
 		}
-		for _, x := range v.m.Neighbors(p) {
+		for _, x := range v.nbrs(p) {
 			if x == f || v.shareAromRing(p, x) {
 				continue
 			}
@@ -235,7 +235,7 @@ func (t *Table) ringSubstituents(v *view, r []int, c int, fw, bw []int, scale fl
 				pos = "para"
 			}
 		}
-		for _, x := range v.m.Neighbors(j) {
+		for _, x := range v.nbrs(j) {
 			if slices.Contains(r, x) || v.shareAromRing(j, x) {
 				continue
 			}
@@ -275,7 +275,7 @@ func (t *Table) vinylConj(v *view, x int) bool {
 	if y < 0 {
 		return false
 	}
-	for _, z := range v.m.Neighbors(y) {
+	for _, z := range v.nbrs(y) {
 		if z != x && v.conjugating(y, z) {
 			return true
 		}

@@ -8,10 +8,19 @@ type view struct {
 	m     *graph.Mol
 	arom  [][]int // SSSR rings whose atoms are all aromatic
 	rings [][]int
+	nb    [][]int // neighbours of each atom, filled on first use
+}
+
+// nbrs returns the neighbours of a (cached; must not be modified).
+func (v *view) nbrs(a int) []int {
+	if v.nb[a] == nil {
+		v.nb[a] = v.m.Neighbors(a)
+	}
+	return v.nb[a]
 }
 
 func newView(m *graph.Mol) *view {
-	v := &view{m: m, rings: m.Rings()}
+	v := &view{m: m, rings: m.Rings(), nb: make([][]int, len(m.Atoms))}
 	for _, r := range v.rings {
 		all := true
 		for _, a := range r {
@@ -210,7 +219,7 @@ func (v *view) classifyCarbonyl(from, x int) []string {
 	o := v.doubleTo(x, "O")
 	var keys []string
 	others := 0
-	for _, y := range v.m.Neighbors(x) {
+	for _, y := range v.nbrs(x) {
 		if y == from || y == o {
 			continue
 		}
@@ -251,7 +260,7 @@ func (v *view) classifyCarbonyl(from, x int) []string {
 // classifySp3 names an sp3 carbon substituent. "alkyl" ends every chain.
 func (v *view) classifySp3(from, x int) []string {
 	var nF, nHal, nI, nO, nN, nS, nCO, nAr int
-	for _, y := range v.m.Neighbors(x) {
+	for _, y := range v.nbrs(x) {
 		if y == from {
 			continue
 		}
@@ -313,7 +322,7 @@ func (v *view) classifyN(from, x int) []string {
 	}
 	if a.Charge > 0 {
 		nO := 0
-		for _, y := range v.m.Neighbors(x) {
+		for _, y := range v.nbrs(x) {
 			if v.el(y) == "O" {
 				nO++
 			}
@@ -340,7 +349,7 @@ func (v *view) classifyN(from, x int) []string {
 		}
 	}
 	arom := false
-	for _, y := range v.m.Neighbors(x) {
+	for _, y := range v.nbrs(x) {
 		if y == from {
 			continue
 		}
@@ -376,13 +385,13 @@ func (v *view) classifyO(from, x int) []string {
 	if v.h(x) > 0 {
 		return []string{"OH"}
 	}
-	for _, y := range v.m.Neighbors(x) {
+	for _, y := range v.nbrs(x) {
 		if y == from {
 			continue
 		}
 		switch {
 		case v.carbonyl(y):
-			for _, z := range v.m.Neighbors(y) {
+			for _, z := range v.nbrs(y) {
 				if z != x && v.arom1(z) {
 					return []string{"OC(=O)Ar", "OC(=O)R"}
 				}
@@ -414,7 +423,7 @@ func (v *view) classifyS(from, x int) []string {
 	}
 	switch {
 	case nDO >= 2:
-		for _, y := range v.m.Neighbors(x) {
+		for _, y := range v.nbrs(x) {
 			if y == from || v.order(x, y) == 2 {
 				continue
 			}
@@ -433,7 +442,7 @@ func (v *view) classifyS(from, x int) []string {
 	case v.h(x) > 0:
 		return []string{"SH"}
 	}
-	for _, y := range v.m.Neighbors(x) {
+	for _, y := range v.nbrs(x) {
 		if y != from && v.arom1(y) {
 			return []string{"SAr", "SR"}
 		}

@@ -164,10 +164,10 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 		fallback bool
 	}
 	var alpha []inc
-	for _, x := range v.m.Neighbors(c) {
+	for _, x := range v.nbrs(c) {
 		if v.el(x) == "C" && !v.arom1(x) && v.m.Hybridization(x) == 3 {
 			// Alkyl neighbour: no α increment; its substituents act as β.
-			for _, y := range v.m.Neighbors(x) {
+			for _, y := range v.nbrs(x) {
 				if y == c {
 					continue
 				}
@@ -316,7 +316,7 @@ func (t *Table) alkeneKeys(v *view, c, partner, from, x int) []string {
 // conjugating group other than x, or x (a C=C) continues into one.
 func (t *Table) alkeneConj(v *view, c, partner, x int) bool {
 	for _, e := range []int{c, partner} {
-		for _, y := range v.m.Neighbors(e) {
+		for _, y := range v.nbrs(e) {
 			if y == c || y == partner || y == x {
 				continue
 			}
@@ -326,7 +326,7 @@ func (t *Table) alkeneConj(v *view, c, partner, x int) bool {
 		}
 	}
 	if y := v.doubleTo(x, "C"); y >= 0 {
-		for _, z := range v.m.Neighbors(y) {
+		for _, z := range v.nbrs(y) {
 			if z != x && v.conjugating(y, z) {
 				return true
 			}
@@ -339,7 +339,7 @@ func (t *Table) alkeneConj(v *view, c, partner, x int) bool {
 // neighbour outside the ring.
 func ringSubstituted(v *view, r []int) bool {
 	for _, a := range r {
-		for _, x := range v.m.Neighbors(a) {
+		for _, x := range v.nbrs(a) {
 			if !slices.Contains(r, x) {
 				return true
 			}

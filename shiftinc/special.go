@@ -18,7 +18,7 @@ func (t *Table) formyl(v *view, c int, a *acc) {
 	}
 	if n := v.doubleTo(c, "N"); n >= 0 && !v.carbonyl(c) {
 		key := "CH=N"
-		for _, y := range v.m.Neighbors(n) {
+		for _, y := range v.nbrs(n) {
 			if y == c {
 				continue
 			}
@@ -38,7 +38,7 @@ func (t *Table) formyl(v *view, c int, a *acc) {
 	}
 	o := v.doubleTo(c, "O")
 	key := "CHO-H"
-	for _, y := range v.m.Neighbors(c) {
+	for _, y := range v.nbrs(c) {
 		if y == o {
 			continue
 		}
@@ -70,7 +70,7 @@ func (t *Table) alkyne(v *view, c int, a *acc) {
 	if v.el(y) != "C" {
 		key = "≡CH-other"
 	}
-	for _, z := range v.m.Neighbors(y) {
+	for _, z := range v.nbrs(y) {
 		if z == c {
 			continue
 		}
@@ -83,7 +83,7 @@ func (t *Table) alkyne(v *view, c int, a *acc) {
 			key = "≡CH-C=C"
 		case v.el(z) == "C":
 			key = "≡CH-alkyl"
-			for _, w := range v.m.Neighbors(z) {
+			for _, w := range v.nbrs(z) {
 				switch v.el(w) {
 				case "O", "N", "S", "Cl", "Br", "I", "F":
 					key = "≡CH-CH2X"
@@ -150,7 +150,7 @@ func (v *view) exchangeKey(x int) string {
 	case "N":
 		return v.nhKey(x)
 	case "S":
-		for _, y := range v.m.Neighbors(x) {
+		for _, y := range v.nbrs(x) {
 			if v.arom1(y) {
 				return "SH-aryl"
 			}
@@ -161,7 +161,7 @@ func (v *view) exchangeKey(x int) string {
 }
 
 func (v *view) ohKey(o int) string {
-	for _, y := range v.m.Neighbors(o) {
+	for _, y := range v.nbrs(o) {
 		switch {
 		case v.carbonyl(y):
 			return "COOH"
@@ -176,7 +176,7 @@ func (v *view) ohKey(o int) string {
 			return "OH-phenol"
 		case v.el(y) == "C" && v.doubleTo(y, "C") >= 0:
 			z := v.doubleTo(y, "C")
-			for _, w := range v.m.Neighbors(z) {
+			for _, w := range v.nbrs(z) {
 				if w != y && v.carbonyl(w) {
 					return "OH-enol"
 				}
@@ -192,11 +192,11 @@ func (v *view) ohKey(o int) string {
 // orthoCarbonyl reports whether an aromatic atom has a ring neighbour
 // carrying a C=O group (intramolecular H bond for an OH on it).
 func (v *view) orthoCarbonyl(a int) bool {
-	for _, b := range v.m.Neighbors(a) {
+	for _, b := range v.nbrs(a) {
 		if !v.arom1(b) {
 			continue
 		}
-		for _, z := range v.m.Neighbors(b) {
+		for _, z := range v.nbrs(b) {
 			if z != a && !v.arom1(z) && v.carbonyl(z) {
 				return true
 			}
@@ -224,7 +224,7 @@ func (v *view) nhKey(n int) string {
 	}
 	var nCO, nSO2, nAr, nHetAr int
 	urea, hydrazone, amidine, enamine, chelated := false, false, false, false, false
-	for _, y := range v.m.Neighbors(n) {
+	for _, y := range v.nbrs(n) {
 		switch {
 		case v.el(y) == "N" && v.doubleTo(y) >= 0:
 			hydrazone = true
@@ -232,7 +232,7 @@ func (v *view) nhKey(n int) string {
 			amidine = true
 		case v.el(y) == "C" && !v.arom1(y) && v.doubleTo(y, "C") >= 0:
 			z := v.doubleTo(y, "C")
-			for _, w := range v.m.Neighbors(z) {
+			for _, w := range v.nbrs(z) {
 				if w != y && (v.carbonyl(w) || v.tripleTo(w) >= 0 || v.el(w) == "N" && v.m.Atoms[w].Charge > 0) {
 					enamine = true
 				}
@@ -241,7 +241,7 @@ func (v *view) nhKey(n int) string {
 		switch {
 		case v.carbonyl(y):
 			nCO++
-			for _, z := range v.m.Neighbors(y) {
+			for _, z := range v.nbrs(y) {
 				if z != n && (v.el(z) == "O" || v.el(z) == "N") && v.order(y, z) == 1 {
 					urea = true
 				}
@@ -298,11 +298,11 @@ func (v *view) nhKey(n int) string {
 // orthoNitro reports whether an aromatic atom has a ring neighbour
 // carrying a nitro group.
 func (v *view) orthoNitro(a int) bool {
-	for _, b := range v.m.Neighbors(a) {
+	for _, b := range v.nbrs(a) {
 		if !v.arom1(b) {
 			continue
 		}
-		for _, z := range v.m.Neighbors(b) {
+		for _, z := range v.nbrs(b) {
 			if z != a && v.el(z) == "N" && v.m.Atoms[z].Charge > 0 && v.doubleTo(z, "O") >= 0 {
 				return true
 			}
