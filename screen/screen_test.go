@@ -182,3 +182,5 @@ func TestPanicIsContained(t *testing.T) {
 		t.Fatalf("got %+v", sum.Rows)
 	}
 }
+
+func spectrumWrite(f *os.File, s *spectrum.Spectrum) error { return spectrum.WriteJCAMP(f, s, true) }
