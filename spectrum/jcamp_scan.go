@@ -96,8 +96,11 @@ func stripComment(line []byte) []byte {
 // first record that are not blank are reported as an error.
 func scanRecords(data []byte, file string) ([]*ldr, int, error) {
 	data = bytes.TrimPrefix(data, []byte("\xef\xbb\xbf"))
+	// All continuation lines share one slice, sized by a line count, so
+	// that large tables cost one allocation.
+	pool := make([]dataLine, 0, bytes.Count(data, []byte{'\n'})+1)
 	var recs []*ldr
-	var cur *ldr
+	var starts []int
 	num := 0
 	for len(data) > 0 {
 		num++
@@ -113,17 +116,26 @@ func scanRecords(data []byte, file string) ([]*ldr, int, error) {
 				return nil, num, err
 			}
 			recs = append(recs, r)
-			cur = r
+			starts = append(starts, len(pool))
 			continue
 		}
 		line = stripComment(line)
-		if cur == nil {
+		if len(recs) == 0 {
 			if len(bytes.TrimSpace(line)) != 0 {
 				return nil, num, errorf(file, num, "expected a ##LABEL= record, found %q", clip(string(line)))
 			}
 			continue
 		}
-		cur.more = append(cur.more, dataLine{num: num, text: line})
+		pool = append(pool, dataLine{num: num, text: line})
+	}
+	for i, r := range recs {
+		end := len(pool)
+		if i+1 < len(starts) {
+			end = starts[i+1]
+		}
+		if end > starts[i] {
+			r.more = pool[starts[i]:end:end]
+		}
 	}
 	return recs, num, nil
 }

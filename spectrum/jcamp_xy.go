@@ -110,6 +110,7 @@ func (br *blockReader) decodeTrace(p xyParams) error {
 		d.limit = fmt.Sprintf("##%s=%d", p.count(), p.nPoints)
 	}
 	d.ys = make([]float64, 0, preallocPoints(p))
+	d.marks = make([]lineMark, 0, len(p.table.more))
 	for _, l := range p.table.more {
 		if err := d.decodeLine(l.num, l.text); err != nil {
 			return err
