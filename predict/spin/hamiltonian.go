@@ -3,6 +3,7 @@ package spin
 import (
 	"errors"
 	"math"
+	"slices"
 
 	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
@@ -176,6 +177,7 @@ func (b *basis) lines(blk int, e0, e1 eigen, ngrp int, out []rawLine) []rawLine 
 	grps := b.groups()
 	shares := b.shares(blk, e0, e1, grps, sig, w, a)
 	g := len(grps)
+	out = slices.Grow(out, 2*len(sig))
 	for t, tr := range sig {
 		hz := e0.vals[tr.i] - e1.vals[tr.j]
 		sh := shares[t*g : (t+1)*g]

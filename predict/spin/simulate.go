@@ -1,9 +1,11 @@
 package spin
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 )
 
@@ -367,11 +369,11 @@ func binomialWeights(n int) []float64 {
 
 // mergeRaw sorts lines by group and frequency and merges coincident ones.
 func mergeRaw(lines []rawLine) []rawLine {
-	sort.Slice(lines, func(i, k int) bool {
-		if lines[i].eg != lines[k].eg {
-			return lines[i].eg < lines[k].eg
+	slices.SortFunc(lines, func(x, y rawLine) int {
+		if c := cmp.Compare(x.eg, y.eg); c != 0 {
+			return c
 		}
-		return lines[i].hz < lines[k].hz
+		return cmp.Compare(x.hz, y.hz)
 	})
 	// Merge runs that start within mergeTolHz of their first line; the
 	// merged line sits at the intensity-weighted position.
@@ -409,11 +411,14 @@ func (es *esys) distribute(sys System, lines []rawLine, field float64) []Line {
 			out = append(out, Line{Hz: l.hz, PPM: l.hz / field, Intensity: l.inten * f, Group: m})
 		}
 	}
-	sort.SliceStable(out, func(i, k int) bool {
-		if out[i].Group != out[k].Group {
-			return out[i].Group < out[k].Group
+	slices.SortFunc(out, func(x, y Line) int {
+		if c := cmp.Compare(x.Group, y.Group); c != 0 {
+			return c
 		}
-		return out[i].Hz < out[k].Hz
+		if c := cmp.Compare(x.Hz, y.Hz); c != 0 {
+			return c
+		}
+		return cmp.Compare(x.Intensity, y.Intensity)
 	})
 	return out
 }

@@ -1,8 +1,9 @@
 package spin
 
 import (
+	"cmp"
 	"math"
-	"sort"
+	"slices"
 )
 
 // Spectrum returns the physical lines of r: the shares of all groups at one
@@ -12,7 +13,12 @@ import (
 // r.Lines.
 func (r *Result) Spectrum() []Line {
 	ls := append([]Line(nil), r.Lines...)
-	sort.SliceStable(ls, func(i, k int) bool { return ls[i].Hz < ls[k].Hz })
+	slices.SortFunc(ls, func(x, y Line) int {
+		if c := cmp.Compare(x.Hz, y.Hz); c != 0 {
+			return c
+		}
+		return cmp.Compare(x.Group, y.Group)
+	})
 	var out []Line
 	var best []float64 // largest share of the current output line
 	start := 0.0
