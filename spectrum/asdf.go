@@ -75,7 +75,7 @@ func (sc *lineScanner) next() (kind tokKind, v float64, ok bool, msg string) {
 	c := s[sc.pos]
 	if p := pseudoTable[c]; p.kind != tokNone {
 		sc.pos++
-		v, msg := sc.digits(float64(p.digit), p.digit < 0, p.kind == tokDup)
+		v, msg := sc.digits(p.digit, p.kind == tokDup)
 		return p.kind, v, true, msg
 	}
 	if isDigit(c) || c == '.' || c == '+' || c == '-' {
@@ -90,25 +90,32 @@ func (sc *lineScanner) next() (kind tokKind, v float64, ok bool, msg string) {
 
 // digits reads the digits that follow a pseudo-digit whose signed value is
 // first. Integers take a fast path; a decimal point goes through strconv.
-func (sc *lineScanner) digits(first float64, neg, intOnly bool) (float64, string) {
+func (sc *lineScanner) digits(first int8, intOnly bool) (float64, string) {
 	s := sc.s
 	start := sc.pos
-	acc := int64(math.Abs(first))
-	n := 0
-	for sc.pos < len(s) && isDigit(s[sc.pos]) {
-		if n < 17 {
-			acc = acc*10 + int64(s[sc.pos]-'0')
-		}
-		n++
-		sc.pos++
+	neg := first < 0
+	lead := int64(first)
+	if neg {
+		lead = -lead
 	}
-	if n >= 17 {
+	acc := lead
+	i := sc.pos
+	for i < len(s) {
+		c := s[i] - '0'
+		if c > 9 {
+			break
+		}
+		acc = acc*10 + int64(c)
+		i++
+	}
+	sc.pos = i
+	if i-start >= 17 {
 		return 0, "number with too many digits"
 	}
-	if sc.pos < len(s) && s[sc.pos] == '.' && !intOnly {
+	if i < len(s) && s[i] == '.' && !intOnly {
 		for sc.pos++; sc.pos < len(s) && isDigit(s[sc.pos]); sc.pos++ {
 		}
-		sc.buf = append(sc.buf[:0], byte('0'+int(math.Abs(first))))
+		sc.buf = append(sc.buf[:0], byte('0'+lead))
 		sc.buf = append(sc.buf, s[start:sc.pos]...)
 		f, err := strconv.ParseFloat(string(sc.buf), 64)
 		if err != nil {
