@@ -348,7 +348,7 @@ func (v *view) classifyN(from, x int) []string {
 			return []string{"N=O"}
 		}
 	}
-	arom := false
+	arom, hetArom, amidine, enamine := false, false, false, false
 	for _, y := range v.nbrs(x) {
 		if y == from {
 			continue
@@ -359,13 +359,28 @@ func (v *view) classifyN(from, x int) []string {
 		if v.sulfonyl(y) {
 			return []string{"NSO2", "NC(=O)"}
 		}
-		if v.arom1(y) {
+		switch {
+		case v.arom1(y):
 			arom = true
+			if r := v.aromRing(y); r != nil && heteroRing(v, r) {
+				hetArom = true
+			}
+		case v.el(y) == "C" && v.doubleTo(y, "N") >= 0:
+			amidine = true
+		case v.el(y) == "C" && v.doubleTo(y, "C") >= 0:
+			enamine = true
 		}
 	}
 	var keys []string
-	if arom {
+	switch {
+	case amidine:
+		keys = append(keys, "N-C=N")
+	case hetArom:
+		keys = append(keys, "NHetAr", "NAr")
+	case arom:
 		keys = append(keys, "NAr")
+	case enamine:
+		keys = append(keys, "N-C=C")
 	}
 	switch v.h(x) {
 	case 2:

@@ -229,6 +229,13 @@ func (t *Table) smallRing(v *view, c int, a *acc) {
 		return
 	}
 	key := fmt.Sprintf("ring%d", sizes[0])
+	if sizes[0] == 5 {
+		for _, x := range v.nbrs(c) {
+			if (v.el(x) == "O" || v.el(x) == "N") && !v.arom1(x) && v.shareRing(c, x) && slices.Contains(v.m.RingSizes(x), 5) {
+				key = "ring5-hetero"
+			}
+		}
+	}
 	if sizes[0] == 3 {
 		for _, r := range v.rings {
 			if len(r) != 3 || !slices.Contains(r, c) {
