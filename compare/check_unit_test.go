@@ -163,3 +163,40 @@ func TestCheckQNMR(t *testing.T) {
 		t.Errorf("no qNMR uncertainty")
 	}
 }
+
+func TestCheckEdgeCases(t *testing.T) {
+	t.Parallel()
+	noH := func(smi string, field float64, solvent string) (*predict.Prediction, error) {
+		return &predict.Prediction{Smiles: smi, MolecularWeight: 153.8}, nil
+	}
+	for _, tc := range []struct {
+		name string
+		in   Input
+		opt  Options
+		want Verdict
+	}{
+		// CCl4 has no hydrogens: a 1H spectrum cannot confirm it (common
+		// practice, no source).
+		{"no hydrogens", Input{Smiles: "ClC(Cl)(Cl)Cl", Peaks: butanonePeaks()}, Options{Solvent: "CDCl3", Predictor: noH}, Review},
+		{"empty peak list", Input{Smiles: "CCC(C)=O", Peaks: &spectrum.PeakList{FieldMHz: 400}}, Options{Solvent: "CDCl3", Predictor: handPredictor(t)}, Inconsistent},
+		{"unknown solvent", Input{Smiles: "CCC(C)=O", Peaks: butanonePeaks()}, Options{Solvent: "unobtainium", Predictor: handPredictor(t)}, ""},
+	} {
+		res, err := Check(tc.in, tc.opt)
+		if err != nil {
+			t.Errorf("%s: %v", tc.name, err)
+			continue
+		}
+		if tc.want != "" && res.Verdict != tc.want {
+			t.Errorf("%s: verdict %s, want %s; reasons %q", tc.name, res.Verdict, tc.want, res.Reasons)
+		}
+		if len(res.Reasons) == 0 {
+			t.Errorf("%s: no reasons", tc.name)
+		}
+	}
+	if _, err := Check(Input{Smiles: "CCO"}, Options{}); err == nil {
+		t.Error("no spectrum: no error")
+	}
+	if _, err := Check(Input{Peaks: butanonePeaks()}, Options{Predictor: handPredictor(t)}); err == nil {
+		t.Error("no structure: no error")
+	}
+}

@@ -49,6 +49,7 @@ type evaluation struct {
 	z       []float64
 	mc      []float64
 	ms      []mplet // the multiplets as this structure sees them (parts absorbed)
+	nh      map[string]int
 }
 
 // score fills parts, score, verdict and reasons of ev.
@@ -90,7 +91,7 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 		fit.Multiplet = m.idx
 		z := shiftDistance(s.ShiftPPM, m) / signalSD(s)
 		ev.z[i] = z
-		mc := multCost(s.Multiplicity, m.mult) + jCost(distinctJ(s), m.j)
+		mc := signalMultCost(s, m.mult, ev.nhOf()) + jCost(distinctJ(s), m.j)
 		if hostN[j] > 1 || s.Mode == "exact" {
 			mc *= 0.3
 		}
@@ -142,6 +143,17 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 	ev.decide(ms, field, nonExch, badH, poorH)
 }
 
+// nhOf maps signal labels to their number of H.
+func (ev *evaluation) nhOf() map[string]int {
+	if ev.nh == nil {
+		ev.nh = map[string]int{}
+		for _, s := range ev.pred.Signals {
+			ev.nh[s.Label] = s.NH
+		}
+	}
+	return ev.nh
+}
+
 // integralScore is 1 − Σ|H measured − H expected| / Σ H expected over the
 // multiplets holding compound signals (non-exchangeable H only).
 func (ev *evaluation) integralScore(ms []mplet, hostExp map[int]float64) float64 {
@@ -164,6 +176,12 @@ func (ev *evaluation) integralScore(ms []mplet, hostExp map[int]float64) float64
 func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
 	p := ev.parts
 	sig := ev.pred.Signals
+	if len(sig) == 0 {
+		ev.score, ev.verdict = 0, Review
+		ev.reasons = []string{"the structure has no hydrogens: a 1H spectrum cannot confirm it"}
+		ev.caution = []string{"use 13C or another method for a structure without hydrogens"}
+		return
+	}
 	review, incons := false, false
 	var rs []string
 	if p.Missing > 0 {

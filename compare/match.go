@@ -181,6 +181,10 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 		mw *= 0.5 // second-order distortions are common at low field
 	}
 	width := len(cols) + n
+	nhOf := make(map[string]int, n)
+	for _, s := range sig {
+		nhOf[s.Label] = s.NH
+	}
 	cost := make([][]float64, n)
 	for i, s := range sig {
 		row := make([]float64, width)
@@ -194,7 +198,7 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 				v += penalty[cl.m]
 			}
 			if !s.Exchangeable {
-				mc := multCost(s.Multiplicity, m.mult)
+				mc := signalMultCost(s, m.mult, nhOf)
 				if cl.k > 0 || s.Mode == "exact" {
 					mc *= 0.3 // overlapped or strongly coupled: the shape is not its own
 				}

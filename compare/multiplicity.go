@@ -80,10 +80,10 @@ func multCost(pred, meas string) float64 {
 	if la == lb {
 		return 0.3
 	}
-	if subMultiset(b.n, a.n) {
+	if len(b.n) > 0 && subMultiset(b.n, a.n) {
 		return 0.4 // measured lacks some predicted splittings: small J unresolved
 	}
-	if subMultiset(a.n, b.n) {
+	if len(a.n) > 0 && subMultiset(a.n, b.n) {
 		return 0.8 // measured shows a splitting not predicted
 	}
 	if b.broad && la <= 2 {
@@ -170,4 +170,37 @@ func subMultiset(a, b []int) bool {
 		left[x]--
 	}
 	return true
+}
+
+// smallJHz: couplings below this are often not resolved in measured
+// multiplets (line width, digital resolution; common practice, no source).
+const smallJHz = 2.5
+
+// signalMultCost is multCost for a predicted signal, also accepting (at 0.4)
+// the pattern left when its couplings below smallJHz are not resolved.
+// nhOf gives the number of H of each signal label.
+func signalMultCost(s predict.Signal, meas string, nhOf map[string]int) float64 {
+	c := multCost(s.Multiplicity, meas)
+	if c <= 0.4 {
+		return c
+	}
+	b := parsePattern(meas)
+	if !b.known {
+		return c
+	}
+	var red []int
+	for _, cp := range s.Couplings {
+		if math.Abs(cp.JHz) < smallJHz {
+			continue
+		}
+		n := 1
+		if k, ok := nhOf[cp.To]; ok {
+			n = k
+		}
+		red = append(red, n+1)
+	}
+	if equalInts(red, b.n) {
+		return 0.4
+	}
+	return c
 }
