@@ -292,3 +292,37 @@ func TestPerceiveHandBuilt(t *testing.T) {
 		t.Fatalf("Perceive = %v, want an AtomError at atom 0, pos 7", err)
 	}
 }
+
+// Perceive may run again on a perceived molecule (after the caller changes
+// it); on an unchanged one it must give the same hydrogens, aromaticity
+// and rings (common practice, no source).
+func TestPerceiveTwice(t *testing.T) {
+	t.Parallel()
+	for _, s := range []string{
+		"Cn1cnc2c1c(=O)n(C)c(=O)n2C", "C1=CC2=CC=CC=CC2=C1", "O=c1cccc[nH]1", "[CH+]1C=CC=CC=C1",
+		"c1ccc2c(c1)[nH]c1ccccc12", "C[n+]1ccccc1", "c1ccccc1-c1ccccc1", "C12C3C4C1C5C2C3C45",
+	} {
+		m := parsePerceived(t, s)
+		type snap struct {
+			h    int
+			arom bool
+		}
+		before := make([]snap, len(m.Atoms))
+		for i, a := range m.Atoms {
+			before[i] = snap{a.HCount(), a.Aromatic}
+		}
+		nr := len(m.Rings())
+		if err := m.Perceive(); err != nil {
+			t.Errorf("%s: second Perceive: %v", s, err)
+			continue
+		}
+		for i, a := range m.Atoms {
+			if (snap{a.HCount(), a.Aromatic}) != before[i] {
+				t.Errorf("%s atom %d: H/aromatic %v after second Perceive, was %v", s, i, snap{a.HCount(), a.Aromatic}, before[i])
+			}
+		}
+		if len(m.Rings()) != nr {
+			t.Errorf("%s: %d rings after second Perceive, was %d", s, len(m.Rings()), nr)
+		}
+	}
+}

@@ -55,6 +55,7 @@ func TestErrors(t *testing.T) {
 		{"C=Cl", "  ^", "impossible valence for Cl (2 bonds)"},
 		{"[CH5]", "^", "impossible valence for C (5 bonds including 5 H)"},
 		{"Ccc", " ^", "aromatic atom outside a ring"},
+		{"[Cl-].Co", "       ^", "for the element Co write [Co]"},
 		{"c1cccn1", "     ^", "cannot kekulize aromatic system"},
 		{"c1cccn1", "     ^", "did you mean [nH]?"},
 		{"c1ccccc1c1cccc1", "        ^", "cannot kekulize aromatic system"},

@@ -46,7 +46,7 @@ func ParseWithOptions(s string, opt Options) (*graph.Mol, []Warning, error) {
 			if pos < 0 || pos > len(s) {
 				pos = 0
 			}
-			p.errs.Add(pos, e.Msg)
+			p.errs.Add(pos, e.Msg+p.elementHint(pos, e.Msg))
 		}
 	}
 	if len(p.errs) > 0 {
@@ -393,4 +393,18 @@ func (p *parser) finish() {
 	for n, r := range p.rings {
 		p.error(r.pos, fmt.Sprintf("unclosed ring bond %d (SMILES may be truncated)", n))
 	}
+}
+
+// elementHint adds a likely cause to "aromatic atom outside a ring" when the
+// lower-case letter completes an element symbol with the letter before it
+// ("Co" written for cobalt reads as C bonded to an aromatic o).
+func (p *parser) elementHint(pos int, msg string) string {
+	if !strings.HasPrefix(msg, "aromatic atom outside a ring") || pos < 1 || pos >= len(p.src) {
+		return ""
+	}
+	sym := p.src[pos-1 : pos+1]
+	if isUpper(sym[0]) && graph.IsElement(sym) {
+		return fmt.Sprintf("; for the element %s write [%s]", sym, sym)
+	}
+	return ""
 }
