@@ -214,3 +214,24 @@ func TestNormalizeSolvent(t *testing.T) {
 		}
 	}
 }
+
+// TestOddInputs: unusual but valid molecules give finite estimates for
+// every proton (common practice, no source).
+func TestOddInputs(t *testing.T) {
+	for _, smi := range []string{
+		"[CH3+]", "[CH2]", "*C", "[2H]C([2H])C", "C=C=C", "C#[N+][O-]", "[nH]1cccc1",
+		"c1ccccc1-c1ccccc1", "C1=CC=CC=C1", "[H]C([H])([H])[H]", "O", "N", "[NH4+]", "S",
+		"C=[N+]=[N-]", "c1cc[o+]cc1", "C[Se]C", "[SiH4]", "PC", "C1CC2CCC1C2", "c1ccc2cc3ccccc3cc2c1",
+		"O=c1cccc[nH]1", "Cn1cnc2c1c(=O)n(C)c(=O)n2C", "C/C=C\\C", "CC(=O)C=C(C)O", "[O-]C(=O)C",
+	} {
+		m, err := smiles.Parse(smi)
+		if err != nil {
+			continue // the parser's business; nothing to estimate
+		}
+		for p, e := range Default().Protons(m, "") {
+			if math.IsNaN(e.PPM) || math.IsInf(e.PPM, 0) || e.SD <= 0 || len(e.Rules) == 0 {
+				t.Errorf("%s proton %v: %+v", smi, p, e)
+			}
+		}
+	}
+}

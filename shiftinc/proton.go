@@ -262,6 +262,9 @@ func (t *Table) vinyl(v *view, p graph.Proton, a *acc) bool {
 	}
 	c := p.Atom
 	partner := v.doubleTo(c, "C")
+	if partner < 0 {
+		return false
+	}
 	a.base("C=CH base", t.row("base", "vinyl"))
 	for _, s := range []struct {
 		role string
