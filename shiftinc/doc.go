@@ -74,13 +74,29 @@
 //	sd = 0.2
 //	source = "my measurements"
 //
-// Malformed files give an *Error printed as "file:line: key: message".
+// A user row replaces the whole embedded row of the same section and key,
+// so give every value field (missing ones count as 0). Keys the classifier
+// never produces are accepted but have no effect. Malformed files give an
+// *Error printed as "file:line: key: message".
 //
 // # Uncertainty
 //
 // Estimate.SD is the root sum of squares of the sd of every row used, of
 // params.model_sd (not for exchangeable protons, whose rows are already
 // wide) and of the solvent's extra_sd.
+//
+// # Accuracy
+//
+// TestAccuracyNMRShiftDB compares the estimates with about 21,000 assigned
+// 1H shifts of about 3,000 NMRShiftDB2 molecules (../shared/data/shifts).
+// At the time of writing: mean absolute error 0.20 ppm on the CDCl3
+// records and 0.31 ppm on all records (most state no solvent), C–H only;
+// about 68% of errors lie within the reported SD. Exchangeable protons are
+// reported separately (MAE about 1.7 ppm). Run
+//
+//	go test ./shiftinc -run Accuracy -v
+//
+// to see the figures by proton class.
 //
 // # Solvents
 //
