@@ -146,7 +146,7 @@ func (t *Table) aromatic(v *view, c int, a *acc) {
 		case len(r) == 6 && !slices.ContainsFunc(tf, func(s string) bool { return s == "nH" || strings.HasPrefix(s, "c=") }):
 			t.azaFallback(v, r, c, fw, tf, a)
 		default:
-			a.base(fmt.Sprintf("%d-ring aromatic C–H, no pattern: generic", len(r)), t.row("special", "fallback-aromatic"))
+			a.base(fmt.Sprintf("%d-ring aromatic C–H, no pattern for [%s]: generic", len(r), strings.Join(tf, " ")), t.row("special", "fallback-aromatic"))
 			a.low = true
 		}
 		if heteroRing(v, r) || len(r) != 6 {
