@@ -178,76 +178,81 @@ func (m *Mol) aromaticSystem(rs ringSet, sys []int, elec []int) {
 		}
 	}
 	occ := make(map[int]int)
-	comb := make([]int, 0, maxFused)
-	for k := 1; k <= min(len(sys), maxFused); k++ {
+	test := func(combo []int) {
+		clear(occ)
+		for _, ri := range combo {
+			for _, a := range rs.atoms[ri] {
+				occ[a]++
+			}
+		}
+		sum := 0
+		for a, n := range occ {
+			if n <= 2 {
+				sum += elec[a]
+			}
+		}
+		if huckel(sum) {
+			for _, ri := range combo {
+				mark(ri)
+			}
+		}
+	}
+	adj := rs.neighbours(sys)
+	level := make([][]int, 0, len(sys)) // connected combinations of the current size
+	for _, ri := range sys {
+		level = append(level, []int{ri})
+	}
+	for k := 1; k <= maxFused && len(level) > 0; k++ {
 		if done >= len(total) || (k > 2 && len(sys) > 300) {
 			return
 		}
-		forCombinations(len(sys), k, comb, func(idx []int) {
-			combo := make([]int, len(idx))
-			for i, x := range idx {
-				combo[i] = sys[x]
-			}
-			if k > 1 && !rs.connected(combo) {
-				return
-			}
-			clear(occ)
-			for _, ri := range combo {
-				for _, a := range rs.atoms[ri] {
-					occ[a]++
-				}
-			}
-			sum := 0
-			for a, n := range occ {
-				if n <= 2 {
-					sum += elec[a]
-				}
-			}
-			if huckel(sum) {
-				for _, ri := range combo {
-					mark(ri)
-				}
-			}
-		})
+		for _, combo := range level {
+			test(combo)
+		}
+		level = grow(level, adj)
 	}
 }
 
-// forCombinations calls f with every k-subset of 0..n-1 in lexicographic
-// order; buf is scratch space.
-func forCombinations(n, k int, buf []int, f func([]int)) {
-	idx := buf[:k]
-	for i := range idx {
-		idx[i] = i
-	}
-	for {
-		f(idx)
-		i := k - 1
-		for i >= 0 && idx[i] == n-k+i {
-			i--
-		}
-		if i < 0 {
-			return
-		}
-		idx[i]++
-		for j := i + 1; j < k; j++ {
-			idx[j] = idx[j-1] + 1
+// neighbours maps each ring of sys to the rings of sys it shares a bond with.
+func (rs ringSet) neighbours(sys []int) map[int][]int {
+	adj := make(map[int][]int, len(sys))
+	for i, a := range sys {
+		for _, b := range sys[i+1:] {
+			if sharedBonds(rs.bonds[a], rs.bonds[b]) > 0 {
+				adj[a] = append(adj[a], b)
+				adj[b] = append(adj[b], a)
+			}
 		}
 	}
+	return adj
 }
 
-// connected reports whether the rings form one fused group.
-func (rs ringSet) connected(combo []int) bool {
-	reached := []int{combo[0]}
-	in := map[int]bool{combo[0]: true}
-	for i := 0; i < len(reached); i++ {
+// grow returns the connected ring combinations one ring larger than those
+// in level, each once, as ascending ring lists.
+func grow(level [][]int, adj map[int][]int) [][]int {
+	seen := map[string]bool{}
+	var out [][]int
+	key := make([]byte, 0, 64)
+	for _, combo := range level {
 		for _, r := range combo {
-			if !in[r] && sharedBonds(rs.bonds[reached[i]], rs.bonds[r]) > 0 {
-				in[r] = true
-				reached = append(reached, r)
+			for _, nb := range adj[r] {
+				if slices.Contains(combo, nb) {
+					continue
+				}
+				next := append(slices.Clone(combo), nb)
+				slices.Sort(next)
+				key = key[:0]
+				for _, x := range next {
+					key = append(key, byte(x), byte(x>>8), byte(x>>16))
+				}
+				if !seen[string(key)] {
+					seen[string(key)] = true
+					out = append(out, next)
+				}
 			}
 		}
 	}
-	return len(reached) == len(combo)
+	return out
 }
 
 func sharedBonds(x, y []int) int {
