@@ -59,11 +59,13 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 	ev.mc = make([]float64, len(sig))
 	var wS, sS, sP, nonExch, missH, badH, poorH float64
 	hostExp := map[int]float64{}
+	hostAll := map[int]float64{}
 	hostN := map[int]int{}
 	for i, s := range sig {
 		j := ev.sigM[i]
 		if j >= 0 {
 			hostN[j]++
+			hostAll[j] += float64(s.NH)
 			if !s.Exchangeable {
 				hostExp[j] += float64(s.NH)
 			}
@@ -102,8 +104,8 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 		}
 		ev.mc[i] = mc
 		share := m.area * ev.scale
-		if hostExp[j] > 0 && !s.Exchangeable {
-			share *= float64(s.NH) / hostExp[j]
+		if hostN[j] > 1 && hostAll[j] > 0 {
+			share *= float64(s.NH) / hostAll[j] // the multiplet's H divided by the signals' H
 		}
 		ev.assign = append(ev.assign, Assignment{Signal: s.Label, PredictedPPM: s.ShiftPPM, MeasuredPPM: m.ppm,
 			Multiplicity: m.mult, IntegralH: round2(share), PredictedMultiplicity: s.Multiplicity, NH: s.NH,
@@ -371,6 +373,17 @@ func (ev *evaluation) discriminating(ms []mplet) []string {
 		case ev.mc[i] >= 1.5:
 			out = append(out, fmt.Sprintf("%s %.2f: predicted %s, measured %s", s.Label, s.ShiftPPM, orM(s.Multiplicity), orM(ms[j].mult)))
 		}
+	}
+	if len(out) == 0 {
+		// No single decisive signal: name the weaker fits and the integral
+		// disagreements.
+		for i, s := range ev.pred.Signals {
+			if j := ev.sigM[i]; j >= 0 && !s.Exchangeable && (ev.z[i] > 2 || ev.mc[i] >= 1) {
+				out = append(out, fmt.Sprintf("%s %.2f %s: measured %.2f %s (%.1f SD)", s.Label, s.ShiftPPM, orM(s.Multiplicity),
+					ms[j].ppm, orM(ms[j].mult), ev.z[i]))
+			}
+		}
+		out = append(out, ev.regionReasons(ms)...)
 	}
 	sort.Strings(out)
 	return out

@@ -265,14 +265,17 @@ func (ex *explanation) matchTable(ms []mplet, solv SolventInfo, scale float64) {
 		if len(hits) == 0 {
 			return
 		}
+		// Most signals found first; then the closest match in units of each
+		// species' tolerance; then the most signals hidden under the compound.
 		sort.Slice(hits, func(a, b int) bool {
-			if na, nb := hits[a].nSig+hits[a].hidden, hits[b].nSig+hits[b].hidden; na != nb {
-				return na > nb
-			}
 			if hits[a].nSig != hits[b].nSig {
 				return hits[a].nSig > hits[b].nSig
 			}
-			return hits[a].dist < hits[b].dist
+			da, db := hits[a].dist/hits[a].sp.Tol, hits[b].dist/hits[b].sp.Tol
+			if math.Abs(da-db) > 1e-9 {
+				return da < db
+			}
+			return hits[a].hidden > hits[b].hidden
 		})
 		h := hits[0]
 		// Equally good single-signal alternatives on the same multiplet.
@@ -325,6 +328,11 @@ func sameMultiplets(a, b []int) bool {
 // memory).
 const minContaminantAmount = 0.001
 
+// maxSharpWidth is the widest region (ppm, margins included) of a multiplet
+// that can be a sharp contaminant line (s, d, t, q with J ≤ 8 Hz span
+// ≤ 25 Hz plus margins at ≥ 300 MHz; common practice, no source).
+const maxSharpWidth = 0.15
+
 // minIdentifySNR is the S/N a table contaminant's strongest matched peak
 // needs to be named: the quantitation limit S/N 10 of ICH Q2 (value from
 // memory).
@@ -341,7 +349,11 @@ func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string, scale fl
 			if !ex.free(j) || used[j] {
 				continue
 			}
-			d := math.Max(0, math.Abs(ms[j].ppm-want)-0.5*(ms[j].to-ms[j].from))
+			w := ms[j].to - ms[j].from
+			if sp.Kind == "contaminant" && sg.Mult != "m" && w > maxSharpWidth {
+				continue // a broad hump is not a sharp solvent line
+			}
+			d := math.Max(0, math.Abs(ms[j].ppm-want)-0.5*w)
 			if d <= sp.Tol && d < bd {
 				best, bd = j, d
 			}
