@@ -220,3 +220,17 @@ func TestParseIntegralRef(t *testing.T) {
 		}
 	}
 }
+
+// FuzzParseIntegralRef: any --integral-ref text gives a reference or an
+// error, never a panic, and an accepted one has a positive proton count.
+func FuzzParseIntegralRef(f *testing.F) {
+	for _, s := range []string{"3.71=2", "#3=1", "=", "#=", "1e400=1", "NaN=1", "2=NaN"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		r, err := parseIntegralRef(s)
+		if err == nil && !(r.NH > 0) {
+			t.Errorf("%q accepted with NH %g", s, r.NH)
+		}
+	})
+}
