@@ -1,8 +1,10 @@
 package predict
 
 import (
+	"fmt"
 	"math"
 	"sort"
+	"strings"
 
 	"shiftwise/predict/spin"
 )
@@ -76,18 +78,37 @@ func (s *system) groupJ(ss spinSystem, a, b, nH int) float64 {
 	return 0 // F–F and F–P couplings do not change the 1H lines to first order
 }
 
+// Bounds on the number of protons in one coupled cluster: in Auto mode a
+// larger strongly coupled cluster is computed first-order (with a warning),
+// in Exact mode a larger coupled cluster is refused. Exact simulation cost
+// grows about eightfold per added spin; 10 keeps a cluster in milliseconds.
+const (
+	autoMaxNuclei  = 10
+	exactMaxNuclei = 14
+	strongRatio    = spin.DefaultStrongRatio
+	farShiftPPM    = 1000 // where oversized clusters are parked (see exactLines)
+)
+
 // exactLines simulates the spin system and merges the lines back by
 // signal. The mode of a signal is "exact" when any of its groups was
-// simulated exactly.
+// simulated exactly. In Auto mode, the groups of a strongly coupled cluster
+// with more than autoMaxNuclei protons are moved to distinct, distant
+// shifts so that the simulation treats them (and their partners' splitting
+// by them) first-order; their own lines are then taken from the
+// first-order splitting.
 func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 	ss := s.buildSpin()
+	parked, err := s.checkClusters(&ss, opt)
+	if err != nil {
+		return nil, nil, err
+	}
 	res, err := spin.Simulate(ss.sys, spin.Options{FieldMHz: opt.FieldMHz, Mode: opt.Mode})
 	if err != nil {
 		return nil, nil, err
 	}
 	modes := s.modes("first-order")
 	for g, m := range res.ModeUsed {
-		if env := ss.groupEnv[g]; env >= 0 && m == spin.Exact {
+		if env := ss.groupEnv[g]; env >= 0 && m == spin.Exact && !parked[env] {
 			modes[env] = "exact"
 		}
 	}
@@ -98,7 +119,7 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 	sum := map[key]float64{}
 	for _, l := range res.Lines {
 		env := ss.groupEnv[l.Group]
-		if env < 0 {
+		if env < 0 || parked[env] {
 			continue
 		}
 		sum[key{env, int64(math.Round(l.Hz * 1e3))}] += l.Intensity
@@ -109,6 +130,14 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 			continue
 		}
 		out = append(out, Line{PPM: round(float64(k.mHz)/1e3/opt.FieldMHz, 1e-5), Intensity: round(in, 1e-6), Signal: s.envs[k.env].env.Label})
+	}
+	for env := range parked {
+		e := &s.envs[env]
+		ls := []hzLine{{0, float64(e.env.NH)}}
+		for _, ps := range e.partners {
+			ls = split(ls, math.Abs(ps.j), ps.n)
+		}
+		out = append(out, toLines(ls, e.shift, opt.FieldMHz, e.env.Label)...)
 	}
 	order := map[string]int{}
 	for i := range s.envs {
@@ -121,4 +150,62 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 		return out[a].PPM < out[b].PPM
 	})
 	return out, modes, nil
+}
+
+// checkClusters finds the coupled clusters of proton groups (by strong
+// couplings in Auto mode, by any coupling in Exact mode). In Exact mode a
+// cluster above exactMaxNuclei is an error wrapping spin.ErrTooLarge; in
+// Auto mode a cluster above autoMaxNuclei is parked at distant shifts and
+// its environments are returned.
+func (s *system) checkClusters(ss *spinSystem, opt Options) (map[int]bool, error) {
+	n := len(ss.sys.Groups)
+	parent := make([]int, n)
+	for i := range parent {
+		parent[i] = i
+	}
+	find := func(x int) int {
+		for parent[x] != x {
+			parent[x] = parent[parent[x]]
+			x = parent[x]
+		}
+		return x
+	}
+	for _, c := range ss.sys.Couplings {
+		ga, gb := ss.sys.Groups[c.A], ss.sys.Groups[c.B]
+		if !ga.IsProton() || !gb.IsProton() {
+			continue
+		}
+		dnu := math.Abs(ga.ShiftPPM-gb.ShiftPPM) * opt.FieldMHz
+		if opt.Mode == spin.Exact || dnu < strongRatio*math.Abs(c.JHz) {
+			parent[find(c.A)] = find(c.B)
+		}
+	}
+	size := map[int]int{}
+	for g, gr := range ss.sys.Groups {
+		if gr.IsProton() {
+			size[find(g)] += gr.Count
+		}
+	}
+	parked := map[int]bool{}
+	for g, gr := range ss.sys.Groups {
+		r := find(g)
+		switch {
+		case !gr.IsProton():
+		case opt.Mode == spin.Exact && size[r] > exactMaxNuclei:
+			return nil, fmt.Errorf("signal %s is in a coupled cluster of %d protons, more than the %d that exact simulation allows: %w; use --mode auto or first-order",
+				gr.Name, size[r], exactMaxNuclei, spin.ErrTooLarge)
+		case opt.Mode == spin.Auto && size[r] > autoMaxNuclei:
+			parked[ss.groupEnv[g]] = true
+			ss.sys.Groups[g].ShiftPPM = farShiftPPM + 10*float64(g)
+		}
+	}
+	if len(parked) > 0 {
+		var labels []string
+		for env := range parked {
+			labels = append(labels, s.envs[env].env.Label)
+		}
+		sort.Strings(labels)
+		s.warnings = append(s.warnings, fmt.Sprintf("signals %s form a strongly coupled cluster too large to simulate exactly; first-order patterns used for them", strings.Join(labels, ", ")))
+	}
+	return parked, nil
 }

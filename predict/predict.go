@@ -21,7 +21,7 @@ const (
 // Thresholds on |J| in Hz.
 const (
 	minReportHz = 0.5 // couplings listed in Signal.Couplings and split in first-order lines
-	minSpinHz   = 0.3 // couplings passed to the exact simulation
+	minSpinHz   = 0.7 // couplings passed to the exact simulation (smaller ones merge into the line width)
 	strongNames = 2.0 // |Δν| < strongNames·|J| names the signal "m"
 )
 
@@ -113,7 +113,7 @@ func (s *system) lines(opt Options) ([]Line, []string, error) {
 		s.warnings = append(s.warnings, "a coupled cluster is too large to simulate exactly; first-order patterns used ("+err.Error()+")")
 		return s.firstOrderLines(opt), s.modes("first-order"), nil
 	}
-	return nil, nil, fmt.Errorf("predict: %w (try first-order mode)", err)
+	return nil, nil, fmt.Errorf("predict: %w", err)
 }
 
 func (s *system) modes(m string) []string {
