@@ -234,3 +234,56 @@ func TestABXXPart(t *testing.T) {
 	sort.Slice(want, func(i, k int) bool { return want[i].hz < want[k].hz })
 	comparePeaks(t, got, want, 0.01, 0.01)
 }
+
+// TestAABB checks the AA'BB' pattern of a para-disubstituted benzene
+// (Pople, Schneider & Bernstein 1959, AA'BB' analysis; typical J: ortho
+// 8.5, meta 2.0, para 0.3 Hz, common practice): the spectrum is symmetric
+// about (νA+νB)/2, each half has at most 12 lines, and it is not the two
+// first-order doublets: more than 2 lines per half carry intensity, and the
+// lines are roofed towards the centre.
+func TestAABB(t *testing.T) {
+	t.Parallel()
+	const field = 400.0
+	nuA, nuB := 7.30*field, 7.10*field // Δν = 80 Hz, Δν/J ≈ 9.4
+	sys := System{
+		Groups: []Group{{Name: "A", ShiftPPM: nuA / field, Count: 1}, {Name: "A'", ShiftPPM: nuA / field, Count: 1},
+			{Name: "B", ShiftPPM: nuB / field, Count: 1}, {Name: "B'", ShiftPPM: nuB / field, Count: 1}},
+		Couplings: []Coupling{{0, 2, 8.5}, {1, 3, 8.5}, {0, 3, 0.3}, {1, 2, 0.3}, {0, 1, 2.0}, {2, 3, 2.0}},
+	}
+	ps := spectrum(mustSim(t, sys, Options{FieldMHz: field, Mode: Auto}), 1e-4)
+	mid := (nuA + nuB) / 2
+	var hi, lo []peak
+	for _, p := range ps {
+		if p.hz > mid {
+			hi = append(hi, p)
+		} else {
+			lo = append(lo, p)
+		}
+	}
+	if len(hi) != len(lo) || len(hi) > 12 || len(hi) <= 2 {
+		t.Fatalf("halves have %d and %d lines, want equal, 3…12", len(hi), len(lo))
+	}
+	for i := range hi {
+		m := lo[len(lo)-1-i]
+		if math.Abs((hi[i].hz-mid)-(mid-m.hz)) > 0.01 || math.Abs(hi[i].inten-m.inten) > 0.01*hi[i].inten {
+			t.Errorf("line %v has mirror %v, want symmetric about %.2f", hi[i], m, mid)
+		}
+	}
+	var a, wHi, wLo float64 // a: intensity-weighted distance of the A half from the centre
+	for _, p := range hi {
+		a += p.inten * (p.hz - mid)
+		wHi += p.inten
+	}
+	for _, p := range lo {
+		wLo += p.inten
+	}
+	if math.Abs(wHi-2) > 0.01 || math.Abs(wLo-2) > 0.01 {
+		t.Errorf("half intensities %.4f and %.4f, want 2 each", wHi, wLo)
+	}
+	// Roofing: each half's inner lines are stronger, so the intensity
+	// centre lies inside the shift (common practice, no source).
+	if a/wHi >= nuA-mid {
+		t.Errorf("A half centred %.3f Hz from the middle, want < %.1f (roofing)", a/wHi, nuA-mid)
+	}
+	t.Logf("AA'BB' at %g MHz: %d lines per half", field, len(hi))
+}

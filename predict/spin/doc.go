@@ -57,6 +57,12 @@
 // # Limits
 //
 // Exact simulation refuses a cluster larger than Options.MaxSpins allows
-// (default 14 distinct spin-1/2 nuclei: largest Mz block 3432 states) with an
-// error that suggests first-order mode, rather than exhausting memory.
+// (default 12 distinct spin-1/2 nuclei: largest Mz block 924 states; the
+// work, Σ d³ over all blocks and spin combinations, is bounded the same way)
+// with an error wrapping ErrTooLarge that suggests first-order mode, rather
+// than exhausting memory. Composite particles make clusters of CH3 and CH2
+// groups much cheaper than their number of nuclei suggests.
+//
+// Transitions weaker than 1e-8 (forbidden lines) are not reported, and lines
+// closer than 0.001 Hz are merged, so sums hold to about 1e-4 relative.
 package spin

@@ -145,7 +145,7 @@ func (es *esys) exactLines(c []int, xs []int) ([]rawLine, error) {
 		}
 	}
 	norm := math.Pow(2, float64(nuclei-1)) // Tr(F+_g F−_g) = n_g·2^(N−1)
-	var out []rawLine
+	dst := &sink{eg: c}
 	err := configs(es, xs, func(m []float64, w float64) error {
 		nu := make([]float64, len(c))
 		for i, g := range c {
@@ -161,18 +161,11 @@ func (es *esys) exactLines(c []int, xs []int) ([]rawLine, error) {
 					spins = append(spins, cspin{twoF: f, nu: nu[i], grp: i})
 				}
 			}
-			lines, err := transitions(spins, jm, len(c))
-			if err != nil {
-				return err
-			}
-			scale := w * mult / norm
-			for _, l := range lines {
-				out = append(out, rawLine{hz: l.hz, inten: l.inten * scale, eg: c[l.eg]})
-			}
-			return nil
+			dst.scale = w * mult / norm
+			return transitions(spins, jm, dst)
 		})
 	})
-	return out, err
+	return dst.out, err
 }
 
 // configs calls fn for every spin configuration of the partner groups xs:

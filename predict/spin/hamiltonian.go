@@ -3,7 +3,6 @@ package spin
 import (
 	"errors"
 	"math"
-	"slices"
 
 	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
@@ -119,28 +118,34 @@ func (b *basis) diagonalise(blk int, jm [][]float64) (eigen, error) {
 	return eigen{vals: es.Values(nil), vecs: &v}, nil
 }
 
-// transitions returns the lines of spins (intensities not normalised: they
-// sum to Tr(F+F−) over the product basis), attributed to the cluster-local
-// groups 0 … ngrp−1. eg in the returned lines is the cluster-local group.
-func transitions(spins []cspin, jm [][]float64, ngrp int) ([]rawLine, error) {
+// sink receives the lines of a sub-spectrum: intensities are multiplied by
+// scale and cluster-local group k is reported as eg[k].
+type sink struct {
+	out   []rawLine
+	scale float64
+	eg    []int
+}
+
+// transitions appends the lines of spins to dst (raw intensities, which sum
+// to Tr(F+F−) over the product basis, times dst.scale).
+func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 	if len(spins) == 0 {
-		return nil, nil
+		return nil
 	}
 	b := newBasis(spins)
 	cur, err := b.diagonalise(0, jm)
 	if err != nil {
-		return nil, err
+		return err
 	}
-	var out []rawLine
 	for blk := 0; blk+1 < len(b.blocks); blk++ {
 		next, err := b.diagonalise(blk+1, jm)
 		if err != nil {
-			return nil, err
+			return err
 		}
-		out = b.lines(blk, cur, next, ngrp, out)
+		b.lines(blk, cur, next, dst)
 		cur = next
 	}
-	return out, nil
+	return nil
 }
 
 // Thresholds for reporting transitions (raw |<b|F−|a>|², of order 1 for an
@@ -160,13 +165,13 @@ type transition struct {
 // lines appends the transitions from block blk (eigen e0) to block blk+1
 // (eigen e1): A = V1ᵀ F− V0; line (i → j) at E0_i − E1_j with intensity
 // A(j,i)², shared among groups as A_g(j,i)·A(j,i), A_g = V1ᵀ F−_g V0.
-func (b *basis) lines(blk int, e0, e1 eigen, ngrp int, out []rawLine) []rawLine {
+func (b *basis) lines(blk int, e0, e1 eigen, dst *sink) {
 	d0, d1 := len(e0.vals), len(e1.vals)
 	w := mat.NewDense(d1, d0, nil)
 	b.lowerInto(w, blk, e0, -1)
 	a := mat.NewDense(d1, d0, nil)
 	a.Mul(e1.vecs.T(), w)
-	var sig []transition
+	sig := make([]transition, 0, 4*(d0+d1))
 	for j := 0; j < d1; j++ {
 		for i, v := range a.RawRowView(j) {
 			if v*v >= forbidden {
@@ -177,7 +182,6 @@ func (b *basis) lines(blk int, e0, e1 eigen, ngrp int, out []rawLine) []rawLine 
 	grps := b.groups()
 	shares := b.shares(blk, e0, e1, grps, sig, w, a)
 	g := len(grps)
-	out = slices.Grow(out, 2*len(sig))
 	for t, tr := range sig {
 		hz := e0.vals[tr.i] - e1.vals[tr.j]
 		sh := shares[t*g : (t+1)*g]
@@ -196,10 +200,9 @@ func (b *basis) lines(blk int, e0, e1 eigen, ngrp int, out []rawLine) []rawLine 
 			} else if math.Abs(c) < minShare*tr.a*tr.a {
 				continue
 			}
-			out = append(out, rawLine{hz: hz, inten: c, eg: grps[k]})
+			dst.out = append(dst.out, rawLine{hz: hz, inten: c * dst.scale, eg: dst.eg[grps[k]]})
 		}
 	}
-	return out
 }
 
 // groups returns the cluster-local groups present among the spins.

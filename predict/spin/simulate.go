@@ -14,8 +14,10 @@ const (
 	// DefaultStrongRatio is the Auto-mode threshold on |Δν|/|J| below which a
 	// coupling is strong (common practice, no source).
 	DefaultStrongRatio = 10
-	// DefaultMaxSpins bounds exact clusters (see Options.MaxSpins).
-	DefaultMaxSpins = 14
+	// DefaultMaxSpins bounds exact clusters (see Options.MaxSpins): 12
+	// distinct spin-1/2 nuclei, largest Mz block 924 states (about 7 MB per
+	// matrix). 14 (block 3432, about 95 MB per matrix) must be asked for.
+	DefaultMaxSpins = 12
 	// MaxCount is the largest Count accepted for one group.
 	MaxCount = 64
 
@@ -403,7 +405,7 @@ func mergeRaw(lines []rawLine) []rawLine {
 // distribute shares each merged group's lines among its member groups in
 // proportion to their counts and returns the sorted output lines.
 func (es *esys) distribute(sys System, lines []rawLine, field float64) []Line {
-	var out []Line
+	out := make([]Line, 0, len(lines))
 	for _, l := range lines {
 		eg := es.g[l.eg]
 		for _, m := range eg.members {
