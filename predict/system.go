@@ -87,7 +87,12 @@ func newSystem(m *graph.Mol, opt Options) *system {
 func shiftOf(m *graph.Mol, e graph.Environment, opt Options) (ppm, sd float64, low bool, rules []string) {
 	var sum, sumSq, varSum float64
 	seen := map[string]bool{}
-	for _, p := range e.Protons {
+	n := 0
+	for i, p := range e.Protons {
+		if i > 0 && e.Protons[i-1].Atom == p.Atom {
+			continue // protons of one atom in one environment are equivalent
+		}
+		n++
 		est := opt.Rules.Proton(m, p, opt.Solvent)
 		sum += est.PPM
 		sumSq += est.PPM * est.PPM
@@ -100,13 +105,13 @@ func shiftOf(m *graph.Mol, e graph.Environment, opt Options) (ppm, sd float64, l
 			}
 		}
 	}
-	n := float64(len(e.Protons))
 	if n == 0 {
 		return 0, 0, true, nil
 	}
-	ppm = sum / n
-	spread := math.Max(0, sumSq/n-ppm*ppm)
-	return ppm, math.Sqrt(varSum/n + spread), low, rules
+	k := float64(n)
+	ppm = sum / k
+	spread := math.Max(0, sumSq/k-ppm*ppm)
+	return ppm, math.Sqrt(varSum/k + spread), low, rules
 }
 
 // findHetero lists the 19F and 31P atoms.
@@ -139,7 +144,7 @@ func (s *system) couple(opt Options) {
 	for i := 0; i < n; i++ {
 		for k := i + 1; k < n; k++ {
 			p, q := s.protons[i], s.protons[k]
-			if !near[p.Atom][q.Atom] {
+			if !near[p.Atom*len(s.m.Atoms)+q.Atom] {
 				continue
 			}
 			if j, ok := jrules.BetweenIn(s.m, p, q, opt.Solvent); ok {
@@ -157,31 +162,33 @@ func (s *system) couple(opt Options) {
 	}
 }
 
-// nearAtoms returns, for each hydrogen-bearing atom, the set of atoms
-// within maxDist bonds.
-func (s *system) nearAtoms(maxDist int) map[int]map[int]bool {
-	out := map[int]map[int]bool{}
-	for _, p := range s.protons {
-		if out[p.Atom] != nil {
+// nearAtoms returns an atoms×atoms matrix: near[a*n+b] is true when b is
+// within maxDist bonds of the hydrogen-bearing atom a.
+func (s *system) nearAtoms(maxDist int) []bool {
+	n := len(s.m.Atoms)
+	near := make([]bool, n*n)
+	var frontier, next []int
+	for i, p := range s.protons {
+		if i > 0 && s.protons[i-1].Atom == p.Atom {
 			continue
 		}
-		set := map[int]bool{p.Atom: true}
-		frontier := []int{p.Atom}
+		row := near[p.Atom*n : (p.Atom+1)*n]
+		row[p.Atom] = true
+		frontier = append(frontier[:0], p.Atom)
 		for d := 0; d < maxDist; d++ {
-			var next []int
+			next = next[:0]
 			for _, a := range frontier {
 				for _, b := range s.m.Neighbors(a) {
-					if !set[b] {
-						set[b] = true
+					if !row[b] {
+						row[b] = true
 						next = append(next, b)
 					}
 				}
 			}
-			frontier = next
+			frontier, next = next, frontier
 		}
-		out[p.Atom] = set
 	}
-	return out
+	return near
 }
 
 // jh returns the H–H coupling between proton indices i and k.

@@ -1,0 +1,49 @@
+package predict
+
+import (
+	"testing"
+
+	"shiftwise/predict/spin"
+	"shiftwise/smiles"
+)
+
+// Benchmark molecules: losartan (C22H23ClN6O, 30 heavy atoms) and lapatinib
+// (C29H26ClFN4O4S, 40 heavy atoms), SMILES written from their structures.
+const (
+	losartan  = `CCCCc1nc(Cl)c(CO)n1Cc1ccc(cc1)-c1ccccc1-c1nn[nH]n1`
+	lapatinib = `CS(=O)(=O)CCNCc1ccc(o1)-c1ccc2ncnc(Nc3ccc(OCc4cccc(F)c4)c(Cl)c3)c2c1`
+)
+
+func benchPredict(b *testing.B, smi string, heavy int, mode spin.Mode) {
+	m, err := smiles.Parse(smi)
+	if err != nil {
+		b.Fatal(err)
+	}
+	if len(m.Atoms) != heavy {
+		b.Fatalf("%d heavy atoms, want %d", len(m.Atoms), heavy)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		m, err := smiles.Parse(smi)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := Predict(m, smi, Options{Mode: mode}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkPredict30 predicts a 30-heavy-atom molecule end to end (parse +
+// predict). Target: under 1 ms in first-order mode.
+func BenchmarkPredict30(b *testing.B) {
+	b.Run("first-order", func(b *testing.B) { benchPredict(b, losartan, 30, spin.FirstOrder) })
+	b.Run("auto", func(b *testing.B) { benchPredict(b, losartan, 30, spin.Auto) })
+}
+
+// BenchmarkPredict40 predicts a 40-heavy-atom drug-like molecule end to end
+// in auto mode. Target: under 50 ms.
+func BenchmarkPredict40(b *testing.B) {
+	b.Run("auto", func(b *testing.B) { benchPredict(b, lapatinib, 40, spin.Auto) })
+	b.Run("first-order", func(b *testing.B) { benchPredict(b, lapatinib, 40, spin.FirstOrder) })
+}
