@@ -26,7 +26,9 @@ import (
 // expressed in units of an outer line and must be near whole numbers
 // summing to a power of two; the component lines are then peeled one
 // coupling at a time, the smallest coupling being the distance between the
-// first two components. Equal couplings are merged into t, q, p, … and the
+// first two components. When the whole group fails, the analysis is retried
+// without its weakest lines (below 4, then 10 % of the tallest, keeping
+// at least 90 % of the summed height). Equal couplings are merged into t, q, p, … and the
 // name lists the couplings from the largest down ("dt": large doublet of
 // small triplets). A pattern that fails any step is "m".
 
@@ -39,7 +41,12 @@ const (
 	maxComponents = 256 // 8 couplings
 	maxLetters    = 4   // "dddd" is the longest name given
 	groupMaxRatio = 30  // largest height ratio of neighbours joined by distance
+	trimKeep      = 0.9
 )
+
+// trimLevels are the fractions of the tallest line below which lines are
+// dropped, in turn, when a multiplet is not first-order as a whole.
+var trimLevels = []float64{0.04, 0.1}
 
 // multipletNames names a group of c equal couplings (c+1 lines of Pascal's
 // triangle).
@@ -104,7 +111,7 @@ func (g *group) analyze(ls []line, fieldMHz float64) {
 	if len(widths) > 0 {
 		tol = math.Max(tol, 0.3*median(widths))
 	}
-	mult, js, center, ok := firstOrder(hz, h, tol)
+	mult, js, center, ok := firstOrderTrimmed(hz, h, tol)
 	if ok {
 		g.multiplicity, g.j, g.centerPPM = mult, js, center/fieldMHz
 		return
@@ -119,6 +126,43 @@ func (g *group) analyze(ls []line, fieldMHz float64) {
 	if !(sw > 0) {
 		g.centerPPM = (hz[0] + hz[n-1]) / 2 / fieldMHz
 	}
+}
+
+// firstOrderTrimmed runs firstOrder on all lines and, when that fails, on
+// the lines above trimLevels of the tallest: weak lines of an impurity, a
+// skirt or a neighbour inside the region should not hide a clear pattern.
+// A trimmed pattern must keep trimKeep of the summed height.
+func firstOrderTrimmed(hz, h []float64, tol float64) (string, []float64, float64, bool) {
+	if name, js, c, ok := firstOrder(hz, h, tol); ok {
+		return name, js, c, true
+	}
+	hmax, total := 0.0, 0.0
+	for _, v := range h {
+		hmax = math.Max(hmax, v)
+		total += v
+	}
+	prev := len(h)
+	for _, f := range trimLevels {
+		var sh, sz []float64
+		kept := 0.0
+		for i, v := range h {
+			if v >= f*hmax {
+				sz, sh = append(sz, hz[i]), append(sh, v)
+				kept += v
+			}
+		}
+		if len(sh) == prev || len(sh) == 0 {
+			continue
+		}
+		prev = len(sh)
+		if kept < trimKeep*total {
+			break
+		}
+		if name, js, c, ok := firstOrder(sz, sh, tol); ok {
+			return name, js, c, true
+		}
+	}
+	return "", nil, 0, false
 }
 
 // firstOrder analyses lines at positions hz (ascending, Hz) with heights h.
