@@ -143,7 +143,7 @@ func (ex *explanation) findArtifacts(ms []mplet, field float64) {
 			}
 			off := math.Abs(ms[u].ppm-ms[p].ppm) * field
 			rat := ms[u].area / ms[p].area
-			if off >= satMinHz && off <= satMaxHz && rat >= satMinRat && rat <= satMaxRat {
+			if off >= satMinHz && off <= satMaxHz && rat >= satMinRat && rat <= satMaxRat && ex.mirrorOrCovered(ms, u, p, field) {
 				if d := math.Abs(math.Log(rat / 0.0055)); d < bestDev {
 					best, bestDev, kind = p, d, "13C satellite"
 				}
@@ -161,6 +161,25 @@ func (ex *explanation) findArtifacts(ms []mplet, field float64) {
 				Percent: 100 * ms[u].area / ms[best].area, Multiplet: ms[u].idx})
 		}
 	}
+}
+
+// mirrorOrCovered reports whether the other satellite of the pair is there:
+// a multiplet at the mirror position (within 3 Hz, area within a factor 3),
+// or a larger multiplet covering that position.
+func (ex *explanation) mirrorOrCovered(ms []mplet, u, p int, field float64) bool {
+	want := 2*ms[p].ppm - ms[u].ppm
+	for k := range ms {
+		if k == u || k == p {
+			continue
+		}
+		if math.Abs(ms[k].ppm-want)*field <= 3 && math.Abs(math.Log(ms[k].area/ms[u].area)) < math.Log(3) {
+			return true
+		}
+		if want >= ms[k].from && want <= ms[k].to && ms[k].area > ms[u].area {
+			return true
+		}
+	}
+	return false
 }
 
 func (ex *explanation) hasMirror(ms []mplet, u, p int, field float64) bool {

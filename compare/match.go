@@ -336,7 +336,9 @@ func absorbParts(sig []predict.Signal, ms []mplet, avail []bool, sigM []int, sca
 	}
 	for i, j := range sigM {
 		s := sig[i]
-		if j < 0 || s.Exchangeable || s.NH < 2 {
+		// Only sp3 CH2/CH3 groups: rotamers and diastereotopic protons split
+		// them; an aromatic or vinyl signal in two places is a misfit.
+		if j < 0 || s.Exchangeable || s.NH < 2 || (s.Kind != "CH2" && s.Kind != "CH3") {
 			continue
 		}
 		deficit := expect[j] - out[j].area*scale

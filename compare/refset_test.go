@@ -76,6 +76,8 @@ var refSet = []refCompound{
 	{name: "acetanilide", smiles: "CC(=O)Nc1ccccc1", wrong: "CNC(=O)c1ccccc1", spins: "2.17:3 7.50:2 7.31:2 7.10:1 7.40:1x", j: "1-2:8.0 2-3:7.4"},
 	{name: "4-methoxybenzaldehyde", smiles: "COc1ccc(C=O)cc1", wrong: "COc1ccccc1C=O", spins: "3.88:3 7.00:2 7.84:2 9.88:1", j: "1-2:8.7", contaminant: "acetone", contPct: 2},
 	{name: "2-methoxybenzaldehyde", smiles: "COc1ccccc1C=O", wrong: "COc1ccc(C=O)cc1", spins: "3.93:3 6.99:1 7.54:1 7.02:1 7.83:1 10.47:1", j: "1-2:8.4 2-3:7.4 3-4:7.6 2-4:1.8"},
+	// Cross-checked against NMRShiftDB2 id 10008778 (CDCl3: 2.42, 1.05;
+	// TestRefSetAgainstNMRShiftDB2).
 	{name: "3-pentanone", smiles: "CCC(=O)CC", wrong: "CCCC(C)=O", spins: "1.06:6 2.44:4", j: "0-1:7.3"},
 	{name: "2-pentanone", smiles: "CCCC(C)=O", wrong: "CCC(=O)CC", spins: "0.92:3 1.60:2 2.42:2 2.14:3", j: "0-1:7.4 1-2:7.3", contaminant: "ethyl acetate", contPct: 3},
 	{name: "tert-butylbenzene", smiles: "CC(C)(C)c1ccccc1", wrong: "CCCCc1ccccc1", spins: "1.32:9 7.40:2 7.31:2 7.18:1", j: "1-2:7.8 2-3:7.3"},
@@ -84,6 +86,8 @@ var refSet = []refCompound{
 	{name: "vinyl acetate", smiles: "C=COC(C)=O", wrong: "C=CC(=O)OC", spins: "4.88:1 4.57:1 7.27:1 2.14:3", j: "0-1:1.5 0-2:14.0 1-2:6.3"},
 	{name: "2-butanol", smiles: "CCC(C)O", wrong: "CC(C)CO", spins: "0.93:3 1.48:2 3.72:1 1.19:3 1.60:1x", j: "0-1:7.4 1-2:6.2 2-3:6.2",
 		impurity: "CCC(C)=O", impSpins: "1.06:3 2.44:2 2.14:3", impJ: "0-1:7.3", impPct: 5},
+	// Cross-checked against NMRShiftDB2 id 10016628 (3.38, 1.75, 0.90;
+	// TestRefSetAgainstNMRShiftDB2).
 	{name: "isobutanol", smiles: "CC(C)CO", wrong: "CCC(C)O", spins: "0.92:6 1.77:1 3.41:2 1.50:1x", j: "0-1:6.7 1-2:6.5", contaminant: "tetrahydrofuran", contPct: 1.5},
 	{name: "mesitylene", smiles: "Cc1cc(C)cc(C)c1", wrong: "Cc1ccc(C)c(C)c1", spins: "2.27:9 6.78:3", j: ""},
 	{name: "2-methylpyridine", smiles: "Cc1ccccn1", wrong: "Cc1ccncc1", spins: "2.55:3 7.13:1 7.55:1 7.06:1 8.48:1", j: "1-2:7.7 2-3:7.6 3-4:4.9 2-4:1.8"},
