@@ -11,6 +11,9 @@ import (
 	"text/tabwriter"
 
 	"github.com/spf13/cobra"
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
 
 	"shiftwise/predict/spin"
 )
@@ -72,8 +75,8 @@ the whole spectrum sums to the number of 1H nuclei (each group contributes its
 count). Output is
 a table on a terminal, tab-separated lines when piped, or JSON (--json):
 {"field_mhz": 400, "lines": [{"ppm", "hz", "intensity", "group", "mode"}, ...]}.
---out FILE.csv writes a trace (ppm,intensity) of Lorentzian lines of the file's
-line width.
+--out FILE writes the spectrum drawn with Lorentzian lines of the file's line
+width: .csv as a trace (ppm,intensity), .svg, .png or .pdf as a plot.
 
 Errors in the file name the file, line and key, and exit with status 1.`
 
@@ -98,7 +101,7 @@ func newSimulateCmd(f *Factory) *cobra.Command {
 	fl.Float64Var(&o.fieldMHz, "field", 0, "1H observe frequency in MHz (default: from the file, else 400)")
 	fl.StringVar(&o.mode, "mode", "auto", "simulation mode: auto, first-order or exact")
 	fl.BoolVar(&o.json, "json", false, "print JSON")
-	fl.StringVar(&o.out, "out", "", "write a rendered trace to FILE (.csv)")
+	fl.StringVar(&o.out, "out", "", "write the rendered spectrum to FILE (.csv, .svg, .png or .pdf)")
 	return cmd
 }
 
@@ -110,8 +113,10 @@ func runSimulate(f *Factory, o *simulateOptions) error {
 	if o.fieldMHz < 0 || math.IsNaN(o.fieldMHz) || math.IsInf(o.fieldMHz, 0) {
 		return withCode(exitError, fmt.Errorf("simulate: --field must be a positive number of MHz, found %v", o.fieldMHz))
 	}
-	if o.out != "" && strings.ToLower(filepath.Ext(o.out)) != ".csv" {
-		return withCode(exitError, fmt.Errorf("simulate: --out %s: only .csv traces are written", o.out))
+	switch strings.ToLower(filepath.Ext(o.out)) {
+	case "", ".csv", ".svg", ".png", ".pdf":
+	default:
+		return withCode(exitError, fmt.Errorf("simulate: --out %s: expected a .csv, .svg, .png or .pdf file", o.out))
 	}
 	sf, err := spin.ReadFile(o.file)
 	if err != nil {
@@ -124,7 +129,7 @@ func runSimulate(f *Factory, o *simulateOptions) error {
 	}
 	out := simulateResult(sf, res, field)
 	if o.out != "" {
-		if err := writeSimTrace(o.out, res, field, simFirst(sf.LineWidthHz, simDefaultWidth)); err != nil {
+		if err := writeSimTrace(o.out, sf.Name, res, field, simFirst(sf.LineWidthHz, simDefaultWidth)); err != nil {
 			return withCode(exitError, err)
 		}
 	}
@@ -188,15 +193,37 @@ func printSimTSV(w io.Writer, r *simulateJSON) {
 	}
 }
 
-// writeSimTrace writes the rendered spectrum as CSV (ppm,intensity), from
-// high to low ppm.
-func writeSimTrace(path string, res *spin.Result, field, width float64) error {
+// writeSimTrace writes the rendered spectrum: CSV (ppm,intensity, from high
+// to low ppm), or a plot (.svg, .png, .pdf) with the ppm axis running from
+// high to low.
+func writeSimTrace(path, title string, res *spin.Result, field, width float64) error {
 	lo, hi := spin.Span(res.Lines, 20*width/field+0.05)
 	ppm, y := spin.Render(res.Lines, field, hi, lo, simTracePoints, width)
+	if strings.ToLower(filepath.Ext(path)) != ".csv" {
+		return plotSimTrace(path, fmt.Sprintf("%s, %g MHz", filepath.Base(title), field), ppm, y)
+	}
 	var b strings.Builder
 	b.WriteString("ppm,intensity\n")
 	for i := range ppm {
 		fmt.Fprintf(&b, "%.6f,%.6g\n", ppm[i], y[i])
 	}
 	return os.WriteFile(path, []byte(b.String()), 0o644)
+}
+
+func plotSimTrace(path, title string, ppm, y []float64) error {
+	p := plot.New()
+	p.Title.Text = title
+	p.X.Label.Text = "δ / ppm"
+	p.Y.Label.Text = "intensity"
+	p.X.Scale = plot.InvertedScale{Normalizer: p.X.Scale}
+	xy := make(plotter.XYs, len(ppm))
+	for i := range ppm {
+		xy[i].X, xy[i].Y = ppm[i], y[i]
+	}
+	l, err := plotter.NewLine(xy)
+	if err != nil {
+		return err
+	}
+	p.Add(l)
+	return p.Save(20*vg.Centimeter, 10*vg.Centimeter, path)
 }

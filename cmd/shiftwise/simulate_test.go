@@ -102,6 +102,13 @@ func TestSimulateOutputs(t *testing.T) {
 	if rows[0] != "ppm,intensity" || len(rows) != simTracePoints+1 {
 		t.Errorf("csv has %d rows, header %q", len(rows), rows[0])
 	}
+	svg := filepath.Join(dir, "trace.svg")
+	if code, _, errOut := simRun([]string{"simulate", "../../testdata/spins/vinyl.toml", "--field", "60", "--out", svg}, false); code != 0 {
+		t.Fatalf("svg: exit %d: %s", code, errOut)
+	}
+	if data, err := os.ReadFile(svg); err != nil || !bytes.Contains(data, []byte("<svg")) {
+		t.Errorf("svg output: %v, %d bytes", err, len(data))
+	}
 	// Piped: tab-separated, no header.
 	_, out, _ = simRun([]string{"simulate", "../../testdata/spins/ab.toml"}, false)
 	if strings.Contains(out, "group") || strings.Count(out, "\n") != 4 || strings.Count(out, "\t") != 16 {
@@ -121,7 +128,7 @@ func TestSimulateErrors(t *testing.T) {
 		{[]string{"simulate", bad}, bad + `:5: coupling[1].between: unknown group "z"`},
 		{[]string{"simulate", "../../testdata/spins/ab.toml", "--mode", "fast"}, `unknown mode "fast"`},
 		{[]string{"simulate", "../../testdata/spins/ab.toml", "--field", "-3"}, "--field must be"},
-		{[]string{"simulate", "../../testdata/spins/ab.toml", "--out", "x.pdf"}, "only .csv"},
+		{[]string{"simulate", "../../testdata/spins/ab.toml", "--out", "x.txt"}, "expected a .csv, .svg"},
 		{[]string{"simulate", filepath.Join(dir, "missing.toml")}, "no such file"},
 	} {
 		code, _, errOut := simRun(tc.args, false)
