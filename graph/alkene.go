@@ -60,22 +60,43 @@ type alkBond struct {
 func (m *Mol) alkBonds(cls []int) []alkBond {
 	var out []alkBond
 	for bi := range m.Bonds {
-		b := &m.Bonds[bi]
-		if b.Order != 2 || b.Aromatic || !m.alkCarbon(b.A) || !m.alkCarbon(b.B) {
-			continue
+		if ab, ok := m.alkBondAt(bi, cls); ok {
+			out = append(out, ab)
 		}
-		sa, okA := m.alkSlots(b.A, b.B, cls)
-		sb, okB := m.alkSlots(b.B, b.A, cls)
-		if !okA || !okB {
-			continue
-		}
-		ab := alkBond{a: b.A, b: b.B, sa: sa}
-		j0, known := m.alkGeometry(b.A, b.B, sa, sb, cls)
-		ab.sb = [2]alkSlot{sb[j0], sb[1-j0]}
-		ab.known = known
-		out = append(out, ab)
 	}
 	return out
+}
+
+// alkBondAt returns bond bi with its geometry when it is a C=C that
+// alkBonds keeps.
+func (m *Mol) alkBondAt(bi int, cls []int) (alkBond, bool) {
+	b := &m.Bonds[bi]
+	if b.Order != 2 || b.Aromatic || !m.alkCarbon(b.A) || !m.alkCarbon(b.B) {
+		return alkBond{}, false
+	}
+	sa, okA := m.alkSlots(b.A, b.B, cls)
+	sb, okB := m.alkSlots(b.B, b.A, cls)
+	if !okA || !okB {
+		return alkBond{}, false
+	}
+	j0, known := m.alkGeometry(b.A, b.B, sa, sb, cls)
+	return alkBond{a: b.A, b: b.B, sa: sa, sb: [2]alkSlot{sb[j0], sb[1-j0]}, known: known}, true
+}
+
+// alkBondsOf returns, as a one-element list, the C=C holding proton p (nil
+// when there is none), computing the symmetry classes only when needed.
+func (m *Mol) alkBondsOf(p Proton) []alkBond {
+	if p.Atom < 0 || p.Atom >= len(m.Atoms) || p.Index < 0 || p.Index >= m.Atoms[p.Atom].HCount() || !m.alkCarbon(p.Atom) {
+		return nil
+	}
+	for _, bi := range m.adj[p.Atom] {
+		if m.Bonds[bi].Order == 2 {
+			if ab, ok := m.alkBondAt(bi, m.SymmetryClasses()); ok {
+				return []alkBond{ab}
+			}
+		}
+	}
+	return nil
 }
 
 // alkCarbon reports whether a is a non-aromatic carbon with exactly one
@@ -277,8 +298,7 @@ func alkFind(bonds []alkBond, p Proton) (ab *alkBond, slot int, onA bool, ok boo
 // substituent of the other carbon (ranked by number of heavy atoms in the
 // branch, then element, then symmetry class).
 func (m *Mol) AlkeneView(p Proton) (AlkeneView, bool) {
-	bonds := m.alkBonds(m.SymmetryClasses())
-	ab, i, onA, ok := alkFind(bonds, p)
+	ab, i, onA, ok := alkFind(m.alkBondsOf(p), p)
 	if !ok {
 		return AlkeneView{}, false
 	}
@@ -299,7 +319,13 @@ func (m *Mol) AlkeneView(p Proton) (AlkeneView, bool) {
 // RelTrans for hydrogens on the two carbons, RelNone otherwise (including
 // hydrogens on sp3 carbons and p == q).
 func (m *Mol) ProtonRelation(p, q Proton) Relation {
-	return m.protonRelation(m.alkBonds(m.SymmetryClasses()), p, q)
+	valid := func(x Proton) bool {
+		return x.Atom >= 0 && x.Atom < len(m.Atoms) && x.Index >= 0 && x.Index < m.Atoms[x.Atom].HCount()
+	}
+	if p == q || !valid(p) || !valid(q) || (q.Atom != p.Atom && m.BondBetween(p.Atom, q.Atom) < 0) {
+		return RelNone
+	}
+	return m.protonRelation(m.alkBondsOf(p), p, q)
 }
 
 func (m *Mol) protonRelation(bonds []alkBond, p, q Proton) Relation {

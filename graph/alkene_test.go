@@ -80,6 +80,8 @@ func TestProtonRelation(t *testing.T) {
 		{"aromatic", sty, Proton{3, 0}, Proton{4, 0}, RelNone},
 		{"Z vinyl H are cis", crot, Proton{1, 0}, Proton{2, 0}, RelCis},
 		{"vinyl to CH3", crot, Proton{1, 0}, Proton{0, 0}, RelNone},
+		{"no such proton", sty, Proton{0, 0}, Proton{0, 2}, RelNone},
+		{"no such atom", sty, Proton{-1, 0}, Proton{40, 0}, RelNone},
 	}
 	for _, tc := range tests {
 		if got := tc.m.ProtonRelation(tc.p, tc.q); got != tc.want {

@@ -124,6 +124,8 @@ func (m *Mol) envClasses(cls []int, bonds []alkBond) []int {
 		return cls
 	}
 	cur := cls
+	// Each round starts from the previous classes, so the partition only
+	// gets finer and the loop ends after at most len(m.Atoms) rounds.
 	for {
 		extra := make([][][]int, len(m.Atoms))
 		for _, ab := range bonds {
@@ -140,7 +142,7 @@ func (m *Mol) envClasses(cls []int, bonds []alkBond) []int {
 		}
 		init := make([][]int, len(m.Atoms))
 		for a := range init {
-			init[a] = []int{cls[a], 0}
+			init[a] = []int{cur[a], 0}
 			if tags != nil {
 				init[a][1] = tags[a]
 			}
