@@ -140,3 +140,24 @@ func FuzzMerge(f *testing.F) {
 		tab.Protons(m, "")
 	})
 }
+
+// TestConcurrentUse: Default and Proton are safe for concurrent use (run
+// with -race).
+func TestConcurrentUse(t *testing.T) {
+	done := make(chan map[graph.Proton]Estimate)
+	for _, smi := range []string{"CCOC(=O)/C=C/c1ccccc1", "c1ccncc1C", "CC(C)O", "C=CC#N"} {
+		go func() {
+			m, err := smiles.Parse(smi)
+			if err != nil {
+				done <- nil
+				return
+			}
+			done <- Default().Protons(m, "DMSO-d6")
+		}()
+	}
+	for range 4 {
+		if r := <-done; len(r) == 0 {
+			t.Error("no estimates")
+		}
+	}
+}
