@@ -27,6 +27,9 @@ var aromaticElements = map[string]bool{"B": true, "C": true, "N": true, "O": tru
 // -1 when it cannot be part of one.
 func (m *Mol) piElectrons(a int) int {
 	at := &m.Atoms[a]
+	if at.Element == "*" {
+		return m.wildElectrons(a)
+	}
 	if !aromaticElements[at.Element] || m.Degree(a)+at.HCount() > 3 {
 		return -1
 	}
@@ -68,6 +71,27 @@ func (m *Mol) piElectrons(a int) int {
 		return 0
 	}
 	return -1
+}
+
+// wildPi marks a wildcard atom that may give 0, 1 or 2 π electrons.
+const wildPi = 1000
+
+// wildElectrons: a wildcard with a ring double bond gives 1 electron; one
+// with only single bonds stands for whatever atom would make its ring
+// aromatic (OpenSMILES 3.1.6), so it may give 0 to 2.
+func (m *Mol) wildElectrons(a int) int {
+	for _, bi := range m.adj[a] {
+		if m.Bonds[bi].Order == 2 && m.ringBond[bi] {
+			return 1
+		}
+		if m.Bonds[bi].Order > 2 {
+			return -1
+		}
+	}
+	if m.Degree(a)+m.Atoms[a].HCount() > 3 {
+		return -1
+	}
+	return wildPi
 }
 
 // perceiveAromaticity sets Atom.Aromatic and Bond.Aromatic from the Kekulé
@@ -120,6 +144,17 @@ func (m *Mol) perceiveAromaticity() {
 type ringSet struct{ atoms, bonds [][]int }
 
 func huckel(n int) bool { return n >= 2 && (n-2)%4 == 0 }
+
+// huckelRange reports whether sum plus 0–2 electrons from each of wild
+// wildcard atoms can reach 4n+2.
+func huckelRange(sum, wild int) bool {
+	for n := sum; n <= sum+2*wild; n++ {
+		if huckel(n) {
+			return true
+		}
+	}
+	return false
+}
 
 // maxFused is the largest number of rings combined in one Hückel test.
 const maxFused = 6
@@ -185,13 +220,18 @@ func (m *Mol) aromaticSystem(rs ringSet, sys []int, elec []int) {
 				occ[a]++
 			}
 		}
-		sum := 0
+		sum, wild, real := 0, 0, false
 		for a, n := range occ {
-			if n <= 2 {
+			switch {
+			case n > 2:
+			case elec[a] == wildPi:
+				wild++
+			default:
 				sum += elec[a]
+				real = true
 			}
 		}
-		if huckel(sum) {
+		if real && huckelRange(sum, wild) {
 			for _, ri := range combo {
 				mark(ri)
 			}

@@ -1,6 +1,9 @@
 package graph
 
-import "fmt"
+import (
+	"fmt"
+	"math/bits"
+)
 
 // Kekulization.
 //
@@ -16,6 +19,18 @@ import "fmt"
 // c1ccccc1c1ccccc1, or ':' between aliphatic atoms), and reports aromatic
 // atoms outside any ring.
 func (m *Mol) demoteAromatic() []*AtomError {
+	for bi := range m.Bonds {
+		b := &m.Bonds[bi]
+		if !b.Aromatic || !m.ringBond[bi] {
+			continue
+		}
+		// A wildcard in an aromatic ring stands for an aromatic atom.
+		for _, pair := range [2][2]int{{b.A, b.B}, {b.B, b.A}} {
+			if w, o := &m.Atoms[pair[0]], &m.Atoms[pair[1]]; w.Element == "*" && o.Aromatic {
+				w.Aromatic = true
+			}
+		}
+	}
 	for bi := range m.Bonds {
 		b := &m.Bonds[bi]
 		if !b.Aromatic {
@@ -80,16 +95,75 @@ func (m *Mol) kekulize() *AtomError {
 		}
 		g[i] = flat[start:len(flat):len(flat)]
 	}
-	match := maxMatching(g)
+	match := m.matchWithWildcards(nodes, g)
 	for i, j := range match {
-		if j < 0 {
+		if j < 0 && m.Atoms[nodes[i]].Element != "*" {
 			return m.kekuleErr(nodes[i], nodes, match)
 		}
-		if i < j {
+		if j >= 0 && i < j {
 			m.Bonds[m.BondBetween(nodes[i], nodes[j])].Order = 2
 		}
 	}
 	return nil
+}
+
+// matchWithWildcards finds a matching that covers every node except
+// aromatic wildcards, which may or may not take a double bond: subsets of
+// wildcards are tried from the smallest up (all of them at once when there
+// are more than six).
+func (m *Mol) matchWithWildcards(nodes []int, g [][]int) []int {
+	var wild []int
+	for i, a := range nodes {
+		if m.Atoms[a].Element == "*" {
+			wild = append(wild, i)
+		}
+	}
+	if len(wild) == 0 {
+		return maxMatching(g)
+	}
+	if len(wild) > 6 {
+		return maxMatching(g)
+	}
+	var best []int
+	for size := 0; size <= len(wild); size++ {
+		for mask := 0; mask < 1<<len(wild); mask++ {
+			if bits.OnesCount(uint(mask)) != size {
+				continue
+			}
+			off := map[int]bool{}
+			for k, w := range wild {
+				if mask&(1<<k) == 0 {
+					off[w] = true
+				}
+			}
+			sub := make([][]int, len(g))
+			for i := range g {
+				if off[i] {
+					continue
+				}
+				for _, j := range g[i] {
+					if !off[j] {
+						sub[i] = append(sub[i], j)
+					}
+				}
+			}
+			match := maxMatching(sub)
+			ok := true
+			for i, j := range match {
+				if j < 0 && !off[i] {
+					ok = false
+					break
+				}
+			}
+			if ok {
+				return match
+			}
+			if best == nil {
+				best = match
+			}
+		}
+	}
+	return best
 }
 
 // kekuleErr explains a failed kekulization at the first atom of the ring

@@ -25,6 +25,7 @@ func (m *Mol) PerceiveAll() []*AtomError {
 	m.pi = make([]bool, len(m.Atoms))
 	m.findRings()
 	errs := m.demoteAromatic()
+	m.chargeSeparateNOxides()
 	errs = append(errs, m.assignValences()...)
 	if len(errs) > 0 {
 		return errs
@@ -103,4 +104,24 @@ func (m *Mol) Hybridization(a int) int {
 		return 2
 	}
 	return 3
+}
+
+// chargeSeparateNOxides rewrites an aromatic nitrogen written with a double
+// bond to oxygen (O=n1ccccc1) as the N-oxide [O-][n+]1ccccc1, the same
+// clean-up RDKit applies, so that the ring can be kekulized.
+func (m *Mol) chargeSeparateNOxides() {
+	for a := range m.Atoms {
+		at := &m.Atoms[a]
+		if at.Element != "N" || !at.Aromatic || at.Charge != 0 {
+			continue
+		}
+		for _, bi := range m.adj[a] {
+			b := &m.Bonds[bi]
+			o := &m.Atoms[b.Other(a)]
+			if b.Order == 2 && !b.Aromatic && o.Element == "O" && o.Charge == 0 && m.Degree(b.Other(a)) == 1 {
+				at.Charge, o.Charge, b.Order = 1, -1, 1
+				break
+			}
+		}
+	}
 }

@@ -142,6 +142,9 @@ func TestAromaticity(t *testing.T) {
 		{"thiophene S,S-dioxide", "O=S1(=O)C=CC=C1", "-------"},
 		{"biphenyl link not aromatic", "c1ccccc1-c1ccccc1", "aaaaaaaaaaaa"},
 		{"pyrylium", "c1cc[o+]cc1", "aaaaaa"},
+		// OpenSMILES 3.1.6: a wildcard may stand in an aromatic ring.
+		{"wildcard in benzene", "c1cc*cc1", "aaaaaa"},
+		{"wildcard in naphthalene", "c1ccc2c(c1)*ccc2", "aaaaaaaaaa"},
 	} {
 		m := parsePerceived(t, tc.smiles)
 		got := make([]byte, len(m.Atoms))
@@ -324,5 +327,18 @@ func TestPerceiveTwice(t *testing.T) {
 		if len(m.Rings()) != nr {
 			t.Errorf("%s: %d rings after second Perceive, was %d", s, len(m.Rings()), nr)
 		}
+	}
+}
+
+// An aromatic N written with a double bond to O is the N-oxide, charge
+// separated as RDKit's clean-up does (O=n1ccccc1 gives [O-][n+]1ccccc1).
+func TestNOxideWrittenNeutral(t *testing.T) {
+	t.Parallel()
+	m := parsePerceived(t, "O=n1ccccc1")
+	if m.Atoms[0].Charge != -1 || m.Atoms[1].Charge != 1 || !m.Atoms[1].Aromatic {
+		t.Errorf("charges O %d, N %d, N aromatic %v; want -1, +1, true", m.Atoms[0].Charge, m.Atoms[1].Charge, m.Atoms[1].Aromatic)
+	}
+	if m.Formula() != "C5H5NO" {
+		t.Errorf("formula %s, want C5H5NO", m.Formula())
 	}
 }

@@ -139,7 +139,8 @@ func (m *Mol) assignAtom(a int) *AtomError {
 		return m.atomErr(a, fmt.Sprintf("unknown element %q", at.Element))
 	}
 	if z == 0 {
-		m.pi[a] = at.Aromatic && !at.Bracket && m.bondedValence(a) < 3
+		// An aromatic wildcard may take a double bond (see kekulize).
+		m.pi[a] = at.Aromatic && m.bondedValence(a) < 4
 		return nil
 	}
 	if !at.Bracket {

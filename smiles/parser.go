@@ -232,7 +232,10 @@ func (p *parser) addBond(a, b int, pb pendingBond, pos int) int {
 	}
 	switch pb.sym {
 	case 0:
-		bd.arom = p.atoms[a].Aromatic && p.atoms[b].Aromatic
+		// Between aromatic atoms, or an aromatic atom and a wildcard
+		// (c1cc*cc1), an implicit bond is aromatic if it lies in a ring.
+		wa, wb := p.atoms[a].Element == "*", p.atoms[b].Element == "*"
+		bd.arom = (p.atoms[a].Aromatic || wa) && (p.atoms[b].Aromatic || wb) && !(wa && wb)
 	case '=':
 		bd.order = 2
 	case '#':
