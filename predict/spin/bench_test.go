@@ -4,15 +4,20 @@ import (
 	"testing"
 )
 
-// benchSim runs Simulate on sys b.N times.
+// benchSim runs Simulate on sys b.N times and also reports the process CPU
+// time per operation (cpu-ns/op).
 func benchSim(b *testing.B, sys System, opt Options) {
 	b.Helper()
 	b.ReportAllocs()
+	c0 := cpuTime()
+	n := 0
 	for b.Loop() {
 		if _, err := Simulate(sys, opt); err != nil {
 			b.Fatal(err)
 		}
+		n++
 	}
+	b.ReportMetric(float64((cpuTime()-c0).Nanoseconds())/float64(n), "cpu-ns/op")
 }
 
 // BenchmarkCluster10 is one strongly coupled cluster of 10 distinct protons
