@@ -179,3 +179,12 @@ func TestEnvironmentsRandomOrderCorpus(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkEnvironments times Environments on atorvastatin (41 heavy atoms),
+// parsed once.
+func BenchmarkEnvironments(b *testing.B) {
+	m := mustParse(b, "CC(C)c1c(C(=O)Nc2ccccc2)c(-c2ccccc2)c(-c2ccc(F)cc2)n1CC[C@@H](O)C[C@@H](O)CC(=O)O")
+	for b.Loop() {
+		_ = m.Environments()
+	}
+}
