@@ -70,11 +70,6 @@ func (t *Table) proton(v *view, p graph.Proton, solvent string) Estimate {
 	sol, known := t.NormalizeSolvent(solvent)
 	if !known {
 		sol = "CDCl3"
-		extra := 0.3
-		if r := t.solventRow("unknown"); r != nil {
-			extra = r.ExtraSD
-		}
-		a.note(fmt.Sprintf("solvent %q not recognised: CDCl3 values, +%.2f uncertainty", solvent, extra), extra)
 	}
 	est := Estimate{Solvent: sol}
 	if p.Atom < 0 || p.Atom >= len(v.m.Atoms) || p.Index < 0 || p.Index >= v.m.Atoms[p.Atom].HCount() {
@@ -93,7 +88,14 @@ func (t *Table) proton(v *view, p graph.Proton, solvent string) Estimate {
 		a.base("H on "+v.el(p.Atom)+": no rule, generic", t.row("special", "fallback-other"))
 		a.low = true
 	}
-	if r := t.solventRow(sol); r != nil && (r.Offset != 0 || r.ExtraSD != 0) {
+	switch r := t.solventRow(sol); {
+	case !known:
+		extra := 0.3
+		if r := t.solventRow("unknown"); r != nil {
+			extra = r.ExtraSD
+		}
+		a.note(fmt.Sprintf("solvent %q not recognised: CDCl3 values, +%.2f uncertainty", solvent, extra), extra)
+	case r != nil && (r.Offset != 0 || r.ExtraSD != 0):
 		a.add("solvent "+sol, r.Offset, r.ExtraSD)
 	}
 	return t.finish(a, est, false)

@@ -137,7 +137,10 @@ func (t *Table) exchangeable(v *view, x int, sol string, unknown bool, a *acc) {
 	a.ppm += r.PPM
 	a.v += r.SD * r.SD
 	a.rules = append(a.rules, fmt.Sprintf("%s %.2f (exchangeable, wide range)", key, r.PPM))
-	if sol != "CDCl3" {
+	switch {
+	case unknown:
+		a.note(fmt.Sprintf("solvent not recognised: CDCl3 value for %s, +0.5 uncertainty", key), 0.5)
+	case sol != "CDCl3":
 		a.note(fmt.Sprintf("no %s value for %s: CDCl3 value, +0.5 uncertainty", sol, key), 0.5)
 	}
 }
