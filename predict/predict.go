@@ -1,7 +1,6 @@
 package predict
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -109,8 +108,10 @@ func (s *system) lines(opt Options) ([]Line, []string, error) {
 	if err == nil {
 		return lines, modes, nil
 	}
-	if opt.Mode == spin.Auto && errors.Is(err, spin.ErrTooLarge) {
-		s.warnings = append(s.warnings, "a coupled cluster is too large to simulate exactly; first-order patterns used ("+err.Error()+")")
+	if opt.Mode == spin.Auto {
+		// Auto mode never fails for want of exact simulation (a cluster
+		// over the spin package's bounds, a group over spin.MaxCount).
+		s.warnings = append(s.warnings, "exact simulation not possible; first-order patterns used ("+err.Error()+")")
 		return s.firstOrderLines(opt), s.modes("first-order"), nil
 	}
 	return nil, nil, fmt.Errorf("predict: %w", err)
