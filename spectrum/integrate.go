@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"sort"
+
+	"gonum.org/v1/gonum/mat"
 )
 
 // Integration.
@@ -17,7 +19,9 @@ import (
 // model of the picked peaks: the area of the multiplet's own lines outside
 // the region is added and the area that other lines put inside it is taken
 // away, each line being A·γ·[atan((b−x₀)/γ) − atan((a−x₀)/γ)] over [a,b] for
-// height A and half width γ. The correction is exact for Lorentzian lines and
+// amplitude A (the picked heights with the neighbours' overlap removed, see
+// lineAmplitudes) and half width γ (the median of its multiplet's lines).
+// The correction is exact for Lorentzian lines and
 // a small second-order term otherwise; real lines fall off faster than a
 // Lorentzian far out, so the correction is capped at tailCorrectionCap of the
 // region sum (it is meant for tails, not for separating overlapping signals).
@@ -37,6 +41,7 @@ const (
 	wholeTolerance        = 0.12
 	maxWholeN             = 4
 	tailCorrectionCap     = 0.15
+	maxDeconvolveLines    = 64 // larger multiplets keep their picked heights
 	// minResolvedFrac: multiplets smaller than this fraction of the largest
 	// are impurities or artifacts, not candidates for the integral unit
 	// (1/16 still admits a 1H signal beside a 16H one).
@@ -77,6 +82,8 @@ func setRegions(gs []group, ls []line, fieldMHz float64) {
 // integrateTrace sets the raw area of every group from the corrected trace
 // y on the ascending axis ppm, in intensity·ppm.
 func integrateTrace(gs []group, ls []line, ppm, y []float64, fieldMHz float64) {
+	width := groupWidths(gs, ls)
+	amp := lineAmplitudes(gs, ls, width, fieldMHz)
 	for k := range gs {
 		g := &gs[k]
 		area := trapezoid(ppm, y, g.from, g.to)
@@ -86,13 +93,13 @@ func integrateTrace(gs []group, ls []line, ppm, y []float64, fieldMHz float64) {
 			own[i] = true
 		}
 		for i, l := range ls {
-			gamma := l.widthHz / 2 / fieldMHz
-			if !(gamma > 0) || !(l.height > 0) {
+			gamma := width[i] / 2 / fieldMHz
+			if !(gamma > 0) || !(amp[i] > 0) {
 				continue
 			}
-			inside := lorentzArea(l.height, l.ppm, gamma, g.from, g.to)
+			inside := lorentzArea(amp[i], l.ppm, gamma, g.from, g.to)
 			if own[i] {
-				corr += l.height*gamma*math.Pi - inside
+				corr += amp[i]*gamma*math.Pi - inside
 			} else {
 				corr -= inside
 			}
@@ -100,6 +107,80 @@ func integrateTrace(gs []group, ls []line, ppm, y []float64, fieldMHz float64) {
 		lim := tailCorrectionCap * math.Abs(area)
 		g.raw = area + math.Max(-lim, math.Min(lim, corr))
 	}
+}
+
+// groupWidths gives every line the median width of its multiplet (the
+// lines of one multiplet share their natural width, and the median is far
+// less noisy than one line's width at low S/N); lines outside multiplets
+// keep their own.
+func groupWidths(gs []group, ls []line) []float64 {
+	w := make([]float64, len(ls))
+	for i, l := range ls {
+		w[i] = l.widthHz
+	}
+	for _, g := range gs {
+		var v []float64
+		for _, i := range g.lines {
+			if ls[i].widthHz > 0 {
+				v = append(v, ls[i].widthHz)
+			}
+		}
+		if len(v) == 0 {
+			continue
+		}
+		m := median(v)
+		for _, i := range g.lines {
+			w[i] = m
+		}
+	}
+	return w
+}
+
+// lineAmplitudes separates the heights of overlapping lines: the picked
+// height of a line includes the tails of its neighbours, so within each
+// multiplet the amplitudes A solve Σⱼ Aⱼ·L(xᵢ−xⱼ; γⱼ) = hᵢ at the line
+// positions (L the unit Lorentzian). Where the system is singular or gives a
+// non-positive amplitude, the picked heights are kept.
+func lineAmplitudes(gs []group, ls []line, width []float64, fieldMHz float64) []float64 {
+	amp := make([]float64, len(ls))
+	for i, l := range ls {
+		amp[i] = l.height
+	}
+	for _, g := range gs {
+		n := len(g.lines)
+		if n < 2 || n > maxDeconvolveLines {
+			continue
+		}
+		a := mat.NewDense(n, n, nil)
+		b := mat.NewVecDense(n, nil)
+		for r, i := range g.lines {
+			b.SetVec(r, ls[i].height)
+			for c, j := range g.lines {
+				gam := width[j] / 2
+				if !(gam > 0) {
+					gam = 1e-6
+				}
+				d := (ls[i].ppm - ls[j].ppm) * fieldMHz / gam
+				a.Set(r, c, 1/(1+d*d))
+			}
+		}
+		var x mat.VecDense
+		if err := x.SolveVec(a, b); err != nil {
+			continue
+		}
+		ok := true
+		for r := range n {
+			if !(x.AtVec(r) > 0) {
+				ok = false
+			}
+		}
+		if ok {
+			for r, i := range g.lines {
+				amp[i] = x.AtVec(r)
+			}
+		}
+	}
+	return amp
 }
 
 // lorentzArea is the area of a Lorentzian of height a, centre x0 and half

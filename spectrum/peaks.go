@@ -62,7 +62,7 @@ func pickLines(ppm, y []float64, sigma, minSNR, hzPerPoint float64) []line {
 		}
 		l := refine(y, i)
 		l.ppm = pointToPPM(ppm, l.pos)
-		l.widthHz = halfWidth(y, i, l.height, l.pos) * hzPerPoint
+		l.widthHz = halfWidth(y, i, l.height, l.pos, sigma) * hzPerPoint
 		l.snr = l.height / sigma
 		out = append(out, l)
 	}
@@ -180,10 +180,10 @@ func pointToPPM(ppm []float64, pos float64) float64 {
 // again before falling to half height (an overlapping neighbour) is replaced
 // by the other side; when both are blocked the width follows from the
 // curvature of a Lorentzian through the three top points.
-func halfWidth(y []float64, i int, height, pos float64) float64 {
+func halfWidth(y []float64, i int, height, pos, sigma float64) float64 {
 	half := height / 2
-	left, okL := crossing(y, i, -1, half)
-	right, okR := crossing(y, i, +1, half)
+	left, okL := crossing(y, i, -1, half, 3*sigma)
+	right, okR := crossing(y, i, +1, half, 3*sigma)
 	switch {
 	case okL && okR && right > left:
 		return right - left
@@ -202,18 +202,20 @@ func halfWidth(y []float64, i int, height, pos float64) float64 {
 
 // crossing walks from point i in direction dir until y falls below level
 // and returns the interpolated crossing point. ok is false when the trace
-// rises again (or ends) first.
-func crossing(y []float64, i, dir int, level float64) (float64, bool) {
-	prev := y[i]
+// first rises more than slack above the lowest value met (an overlapping
+// line; smaller upticks are noise) or ends.
+func crossing(y []float64, i, dir int, level, slack float64) (float64, bool) {
+	prev, low := y[i], y[i]
 	for j := i + dir; j >= 0 && j < len(y); j += dir {
 		v := y[j]
 		if v < level {
 			f := (prev - level) / (prev - v)
 			return float64(j-dir) + float64(dir)*f, true
 		}
-		if v > prev {
+		if v > low+slack {
 			return 0, false
 		}
+		low = math.Min(low, v)
 		prev = v
 	}
 	return 0, false

@@ -119,7 +119,42 @@ func TestProcessSynthetic(t *testing.T) {
 			}
 		}
 	}
-	checkIntegrals(t, pl, sig)
+	checkIntegrals(t, pl, sig, 0.02)
+}
+
+// TestProcessSyntheticSNR20 repeats the acceptance at the limit:
+// the weakest lines (the eight 1/8-H lines of the ddd) stand 20σ high, over
+// five noise seeds. Positions within 0.001 ppm and J within 0.2 Hz are
+// required. Integrals are noise-limited at this S/N: over 30 seeds the
+// 1 H multiplets scatter with a standard deviation of 0.8–1.0 % (the td at
+// 7.61 ppm reads 0.8 % high on average), so they are held to 3 % here and
+// to the 2 % in TestProcessSynthetic (weakest lines 30σ).
+func TestProcessSyntheticSNR20(t *testing.T) {
+	t.Parallel()
+	const field = 400.13
+	sig := synthSignals()
+	for seed := uint64(1); seed <= 5; seed++ {
+		// h = a/(πγ): 1/8 H · 200 / field / (π · 0.4 Hz / field) ≈ 19.9σ.
+		s := synthTrace(sig, field, -1, 11, 65536, 0.8, 200, seed)
+		pl, err := Process(s, ProcessOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		checkPeakPositions(t, pl, sig, field)
+		for _, sg := range sig {
+			m := multipletAt(pl, sg.ppm)
+			if m == nil || m.Multiplicity != sg.mult {
+				t.Errorf("seed %d, %.2f ppm: got %+v, want %s", seed, sg.ppm, m, sg.mult)
+				continue
+			}
+			for k, j := range sg.jOut {
+				if math.Abs(m.JHz[k]-j) > 0.2 {
+					t.Errorf("seed %d, %.2f ppm: J %v, want %v", seed, sg.ppm, m.JHz, sg.jOut)
+				}
+			}
+		}
+		checkIntegrals(t, pl, sig, 0.03)
+	}
 }
 
 // checkPeakPositions requires every line with S/N ≥ 20 to be picked within
@@ -154,7 +189,7 @@ func checkPeakPositions(t *testing.T, pl *PeakList, sig []synthSignal, field flo
 
 // checkIntegrals compares the relative integrals with the proton counts
 // (scaled on the 2H doublet, as a chemist would fix one signal).
-func checkIntegrals(t *testing.T, pl *PeakList, sig []synthSignal) {
+func checkIntegrals(t *testing.T, pl *PeakList, sig []synthSignal, tol float64) {
 	t.Helper()
 	ref := multipletAt(pl, 6.88)
 	if ref == nil {
@@ -169,8 +204,8 @@ func checkIntegrals(t *testing.T, pl *PeakList, sig []synthSignal) {
 		got := m.RawArea / ref.RawArea * 2
 		rel := math.Abs(got-sg.nH) / sg.nH
 		worst = math.Max(worst, rel)
-		if rel > 0.02 {
-			t.Errorf("%.2f ppm: integral %.3f H, want %.2f within 2%%", sg.ppm, got, sg.nH)
+		if rel > tol {
+			t.Errorf("%.2f ppm: integral %.3f H, want %.2f within %.0f%%", sg.ppm, got, sg.nH, 100*tol)
 		}
 	}
 	t.Logf("worst relative integral error: %.2f%%", 100*worst)
