@@ -37,12 +37,13 @@ func spectrum(r *Result, minI float64) []peak {
 	return out
 }
 
-// sumTol is the relative tolerance of sum-rule checks: transitions weaker
-// than 1e-8 (forbidden lines) are not reported.
-const sumTol = 1e-4
+// sumTol is the relative tolerance of sum-rule checks (rounding only: the
+// intensity of unlisted weak lines is in Result.Dropped).
+const sumTol = 1e-6
 
+// total is the intensity of all lines plus the dropped weak ones.
 func total(r *Result) float64 {
-	s := 0.0
+	s := r.Dropped
 	for _, l := range r.Lines {
 		s += l.Intensity
 	}

@@ -52,7 +52,9 @@
 //
 // The intensity of a transition is |<b|F−|a>|² = Σ_g Re(<b|F−_g|a>*<b|F−|a>),
 // where F−_g is the lowering operator of group g; each term is reported as a
-// Line of group g. The terms of one group sum to its Count.
+// Line of group g. The terms of one group sum to its Count (to about 0.1%:
+// shares below 1e-4 of a line are given to the line's largest share, which
+// keeps the line's total exact).
 //
 // # Limits
 //
@@ -63,6 +65,7 @@
 // than exhausting memory. Composite particles make clusters of CH3 and CH2
 // groups much cheaper than their number of nuclei suggests.
 //
-// Transitions weaker than 1e-8 (forbidden lines) are not reported, and lines
-// closer than 0.001 Hz are merged, so sums hold to about 1e-4 relative.
+// Exact transitions weaker than MinLine (1e-6 of one nucleus) are not
+// listed; their total is Result.Dropped, so that the lines plus Dropped obey
+// the sum rule. Lines closer than 0.001 Hz are merged.
 package spin

@@ -130,7 +130,8 @@ func (es *esys) exactCost(c []int, maxSpins int) (float64, error) {
 
 // exactLines simulates cluster c exactly, treating the partners xs in the X
 // approximation (one sub-spectrum per spin configuration of the partners).
-func (es *esys) exactLines(c []int, xs []int) ([]rawLine, error) {
+// It also returns the intensity of the transitions too weak to report.
+func (es *esys) exactLines(c []int, xs []int) ([]rawLine, float64, error) {
 	ns := make([]int, len(c))
 	nuclei := 0
 	for i, g := range c {
@@ -165,7 +166,7 @@ func (es *esys) exactLines(c []int, xs []int) ([]rawLine, error) {
 			return transitions(spins, jm, dst)
 		})
 	})
-	return dst.out, err
+	return dst.out, dst.dropped, err
 }
 
 // configs calls fn for every spin configuration of the partner groups xs:

@@ -121,9 +121,10 @@ func (b *basis) diagonalise(blk int, jm [][]float64) (eigen, error) {
 // sink receives the lines of a sub-spectrum: intensities are multiplied by
 // scale and cluster-local group k is reported as eg[k].
 type sink struct {
-	out   []rawLine
-	scale float64
-	eg    []int
+	out     []rawLine
+	scale   float64
+	eg      []int
+	dropped float64 // intensity of transitions weaker than MinLine
 }
 
 // transitions appends the lines of spins to dst (raw intensities, which sum
@@ -151,7 +152,12 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 // Thresholds for reporting transitions (raw |<b|F−|a>|², of order 1 for an
 // allowed line) and group shares (relative to the transition).
 const (
-	forbidden = 1e-8 // weaker transitions are dropped
+	forbidden = 1e-8 // weaker raw transitions are dropped
+	// MinLine is the intensity (one nucleus = 1) below which an exact
+	// transition is not reported; its intensity is added to
+	// Result.Dropped instead. Such lines are invisible at any realistic
+	// signal-to-noise ratio.
+	MinLine = 1e-6
 	minShare  = 1e-4 // smaller shares go to the largest share of the line
 )
 
@@ -174,8 +180,11 @@ func (b *basis) lines(blk int, e0, e1 eigen, dst *sink) {
 	sig := make([]transition, 0, 4*(d0+d1))
 	for j := 0; j < d1; j++ {
 		for i, v := range a.RawRowView(j) {
-			if v*v >= forbidden {
+			switch in := v * v; {
+			case in*dst.scale >= MinLine && in >= forbidden:
 				sig = append(sig, transition{i, j, v})
+			default:
+				dst.dropped += in * dst.scale
 			}
 		}
 	}

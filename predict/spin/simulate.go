@@ -55,10 +55,11 @@ func Simulate(sys System, opt Options) (*Result, error) {
 	}
 	var lines []rawLine
 	for _, c := range clusters {
-		cl, err := es.simulateCluster(c, opt)
+		cl, dropped, err := es.simulateCluster(c, opt)
 		if err != nil {
 			return nil, err
 		}
+		res.Dropped += dropped
 		lines = append(lines, cl...)
 		if opt.Mode == Exact || len(c) > 1 {
 			for _, eg := range c {
@@ -306,16 +307,16 @@ func (es *esys) partners(c []int) []int {
 
 // simulateCluster returns the lines of the groups of cluster c, including the
 // effect of all outside partners.
-func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, error) {
+func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, float64, error) {
 	ps := es.partners(c)
 	if len(c) == 1 && opt.Mode != Exact {
 		g := c[0]
 		lines := []rawLine{{hz: es.g[g].nu, inten: float64(es.g[g].n), eg: g}}
-		return es.splitBy(lines, ps), nil
+		return es.splitBy(lines, ps), 0, nil
 	}
 	cost, err := es.exactCost(c, opt.MaxSpins)
 	if err != nil {
-		return nil, err
+		return nil, 0, err
 	}
 	// Take partners into the X-approximation while the number of
 	// configurations and the total work stay bounded.
@@ -329,11 +330,11 @@ func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, error) {
 		}
 		nconf = next
 	}
-	lines, err := es.exactLines(c, ps[:k])
+	lines, dropped, err := es.exactLines(c, ps[:k])
 	if err != nil {
-		return nil, err
+		return nil, 0, err
 	}
-	return es.splitBy(mergeRaw(lines), ps[k:]), nil
+	return es.splitBy(mergeRaw(lines), ps[k:]), dropped, nil
 }
 
 // splitBy splits every line first-order by the partners ps, using the

@@ -99,4 +99,8 @@ type Result struct {
 	Lines []Line
 	// ModeUsed[g] is the mode actually used for group g (FirstOrder or Exact).
 	ModeUsed []Mode
+	// Dropped is the total intensity of exact transitions weaker than
+	// MinLine, which are not listed: the lines plus Dropped sum to the
+	// number of 1H nuclei.
+	Dropped float64
 }
