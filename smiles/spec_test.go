@@ -219,3 +219,43 @@ func TestConflictingBondDirs(t *testing.T) {
 		}
 	}
 }
+
+// Extended chirality classes (spec 3.9.5 grammar: @TH1, @AL1, @SP1, @TB1,
+// @OH1 …): @TH1/@TH2 are @/@@, the others are accepted and ignored with a
+// warning.
+func TestExtendedChirality(t *testing.T) {
+	t.Parallel()
+	for _, tc := range []struct {
+		smiles string
+		want   graph.Chirality
+		warn   bool
+	}{
+		{"F[C@TH1](Cl)(Br)I", graph.ChiralCCW, false},
+		{"F[C@TH2](Cl)(Br)I", graph.ChiralCW, false},
+		{"F[Pt@SP1](Cl)(Br)I", graph.ChiralNone, true},
+		{"F[As@TB1](Cl)(Br)(I)C", graph.ChiralNone, true},
+		{"C[Co@OH25](C)(C)(C)(C)C", graph.ChiralNone, true},
+	} {
+		m, warns, err := ParseWithOptions(tc.smiles, Options{})
+		if err != nil {
+			t.Errorf("%s: %v", tc.smiles, err)
+			continue
+		}
+		if m.Atoms[1].Chiral != tc.want || (len(warns) > 0) != tc.warn {
+			t.Errorf("%s: chirality %v, warnings %v; want %v, warning %v", tc.smiles, m.Atoms[1].Chiral, warns, tc.want, tc.warn)
+		}
+		if at := 2 + len(m.Atoms[1].Element); tc.warn && warns[0].Pos != at { // the '@'
+			t.Errorf("%s: warning at col %d, want col %d", tc.smiles, warns[0].Pos+1, at+1)
+		}
+	}
+}
+
+// NoPerceive returns the molecule as written: no implicit hydrogens and no
+// chemistry errors.
+func TestNoPerceive(t *testing.T) {
+	t.Parallel()
+	m, _, err := ParseWithOptions("N(C)(C)(C)C", Options{NoPerceive: true})
+	if err != nil || len(m.Atoms) != 5 || m.Atoms[1].ImplicitH != 0 {
+		t.Errorf("NoPerceive: %v, %v", m, err)
+	}
+}
