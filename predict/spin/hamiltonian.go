@@ -157,8 +157,8 @@ const (
 	// transition is not reported; its intensity is added to
 	// Result.Dropped instead. Such lines are invisible at any realistic
 	// signal-to-noise ratio.
-	MinLine = 1e-6
-	minShare  = 1e-4 // smaller shares go to the largest share of the line
+	MinLine  = 1e-6
+	minShare = 1e-4 // smaller shares go to the largest share of the line
 )
 
 // transition is one significant line (i in the upper block, j in the
