@@ -233,7 +233,7 @@ func (t *Table) smallRing(v *view, c int, a *acc) {
 	key := fmt.Sprintf("ring%d", sizes[0])
 	if sizes[0] == 5 {
 		for _, x := range v.nbrs(c) {
-			if (v.el(x) == "O" || v.el(x) == "N") && !v.arom1(x) && v.shareRing(c, x) && slices.Contains(v.m.RingSizes(x), 5) {
+			if (v.el(x) == "O" || v.el(x) == "N" && !v.acylN(x)) && !v.arom1(x) && v.shareRing(c, x) && slices.Contains(v.m.RingSizes(x), 5) {
 				key = "ring5-hetero"
 			}
 		}
@@ -355,6 +355,16 @@ func ringSubstituted(v *view, r []int) bool {
 			if !slices.Contains(r, x) {
 				return true
 			}
+		}
+	}
+	return false
+}
+
+// acylN reports whether nitrogen n carries a carbonyl or sulfonyl group.
+func (v *view) acylN(n int) bool {
+	for _, y := range v.nbrs(n) {
+		if v.carbonyl(y) || v.sulfonyl(y) {
+			return true
 		}
 	}
 	return false
