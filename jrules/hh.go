@@ -301,13 +301,17 @@ func unresolved(nBonds int) J {
 func fourBond(m *graph.Mol, path []int) J {
 	a, x, b := path[0], path[1], path[2]
 	k1, k2 := bondKind(m, a, x), bondKind(m, x, b)
-	if isHetero(m, a) || isHetero(m, b) || isHetero(m, x) {
+	if isHetero(m, a) || isHetero(m, b) {
+		return lr4Unres.j(4)
+	}
+	if k1 == 'a' && k2 == 'a' {
+		return aromaticPair(m, path) // also across a ring heteroatom (J26, J25)
+	}
+	if isHetero(m, x) {
 		return lr4Unres.j(4)
 	}
 	ha, hb := hyb(m, a), hyb(m, b)
 	switch {
-	case k1 == 'a' && k2 == 'a':
-		return aromaticPair(m, path)
 	case ha == 3 && hb == 3 && hyb(m, x) == 3:
 		if r := ringThrough(m, path, 4); r != nil && len(r) == 4 {
 			return lrW.j(4)
