@@ -24,7 +24,7 @@
 //     over the prediction's SD, floored at 0.08 ppm; linear beyond 3 SD),
 //     plus 1.5 × a multiplicity term (0 same pattern, 0.3 unknown or same
 //     line count, 0.4 unresolved small couplings, up to 3), a J term (beyond
-//     ±1.5 Hz), a log-ratio term for NH against the multiplet's H, and 1 per
+//     ±1.5 Hz), a log-ratio term for NH against the multiplet's H, and 1.5 per
 //     extra signal already in the multiplet. Missing costs 20 (about 5.7 SD);
 //     exchangeable protons (OH, NH, COOH) have SD ≥ 1.2 ppm, a light
 //     integral term and a missing cost of 2: broad, shifted or absent

@@ -17,7 +17,7 @@ const (
 	exchShiftSD     = 1.2  // ppm: exchangeable protons move with concentration and water
 	missCost        = 20   // a non-exchangeable signal left without counterpart
 	missCostExch    = 2    // an exchangeable signal not observed (broad/exchanged)
-	shareCost       = 1.0  // one more signal placed in an already used multiplet
+	shareCost       = 1.5  // one more signal placed in an already used multiplet
 	multWeight      = 1.5  // weight of the multiplicity term
 	overWeight      = 4.0  // signal larger than the multiplet (log-ratio²)
 	underWeight     = 1.5  // multiplet larger than the signal (log-ratio²)
