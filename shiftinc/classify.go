@@ -349,9 +349,21 @@ func (v *view) classifyN(from, x int) []string {
 		}
 	}
 	arom, hetArom, amidine, enamine := false, false, false, false
+	var hetero []string
 	for _, y := range v.nbrs(x) {
 		if y == from {
 			continue
+		}
+		switch v.el(y) {
+		case "N":
+			if v.doubleTo(y) >= 0 || v.m.Atoms[y].Charge > 0 {
+				hetero = append(hetero, "N-N=")
+			}
+			hetero = append(hetero, "N-N")
+		case "O":
+			hetero = append(hetero, "N-O")
+		case "P":
+			hetero = append(hetero, "N-P")
 		}
 		if v.carbonyl(y) {
 			return []string{"NC(=O)"}
@@ -371,7 +383,7 @@ func (v *view) classifyN(from, x int) []string {
 			enamine = true
 		}
 	}
-	var keys []string
+	keys := hetero
 	switch {
 	case amidine:
 		keys = append(keys, "N-C=N")

@@ -39,7 +39,8 @@
 // CH2N, CH2S, CH2Hal, CH2I, CH2C=O, CH2Ar, C=C, C≡C, aryl, heteroaryl,
 // CHO, COR, COAr, COOH, COO-, COOR, CONR2, COCl, COSR, CN, C=N, C=S, F,
 // Cl, Br, I, OH, O-, OR, OR-conj, OCH3, OAr, OC(=O)R, OC(=O)Ar, OSO2,
-// amine, NH2, NHR, NR2, NAr, NC(=O), NSO2, N-heteroaryl, N+, NO2, N3, N=C,
+// amine, NH2, NHR, NR2, NAr, NHetAr, N-C=N, N-C=C, N-N, N-N=, N-O, N-P,
+// NC(=O), NSO2, N-heteroaryl, N+, NO2, N3, N=C,
 // N=N, SH, SR, SAr, S(=O)R, SO2R, SO2N, SO3R, SO2Cl, P, Si, B, Sn, other.
 // Alkene rows may also use "<key>-conj" (the double bond carries a further
 // conjugating group) and "alkyl-ring" (the substituent shares a ring with
