@@ -98,7 +98,7 @@ func (m *Mol) kekulize() *AtomError {
 	match := m.matchWithWildcards(nodes, g)
 	for i, j := range match {
 		if j < 0 && m.Atoms[nodes[i]].Element != "*" {
-			return m.kekuleErr(nodes[i], nodes, match)
+			return m.kekuleErr(nodes[i], nodes)
 		}
 		if j >= 0 && i < j {
 			m.Bonds[m.BondBetween(nodes[i], nodes[j])].Order = 2
@@ -169,7 +169,7 @@ func (m *Mol) matchWithWildcards(nodes []int, g [][]int) []int {
 // kekuleErr explains a failed kekulization at the first atom of the ring
 // system that could not be kekulized, or at a pyrrole-type nitrogen written
 // without its hydrogen when the system has one (the usual mistake).
-func (m *Mol) kekuleErr(a int, nodes, match []int) *AtomError {
+func (m *Mol) kekuleErr(a int, nodes []int) *AtomError {
 	first := a
 	for _, n := range nodes {
 		if !m.sameSystem(n, a) {

@@ -225,10 +225,14 @@ func (m *Mol) valenceErr(a, bs int) *AtomError {
 		msg += fmt.Sprintf(" including %d H", h)
 	}
 	msg += ")"
-	if at.Charge == 0 && (sym == "N" || sym == "O" || sym == "C") && bs > 0 {
-		if vs := valences(AtomicNumber(at.Element), 1); vs != nil && bs == vs[0] && sym == "N" {
-			msg += "; a four-bonded nitrogen is written [N+] or [NH+]"
-		}
+	switch {
+	case at.Charge != 0:
+	case sym == "N" && bs == 4:
+		msg += "; a four-bonded nitrogen is written [N+] or [NH+]"
+	case sym == "O" && bs == 3:
+		msg += "; a three-bonded oxygen is written [O+] or [OH+]"
+	case sym == "C" && bs > 4:
+		msg += "; check the bond symbols and branches at this carbon"
 	}
 	return m.atomErr(a, msg)
 }
