@@ -111,6 +111,12 @@ func TestErrorsCollected(t *testing.T) {
 	if len(l) != 3 {
 		t.Errorf("got %d errors (%v), want 3", len(l), err)
 	}
+	// Chemistry errors are collected too, each at its atom.
+	_, err = Parse("CN(C)(C)C.CO(C)C.C=Cl")
+	l, _ = AsList(err)
+	if len(l) != 3 || l[0].Pos != 1 || l[1].Pos != 11 || l[2].Pos != 19 {
+		t.Errorf("got %v, want valence errors at cols 2, 12 and 20", err)
+	}
 	_, err = Parse(strings.Repeat("?", 50))
 	l, _ = AsList(err)
 	if len(l) > maxErrors {
