@@ -2,6 +2,7 @@ package main
 
 import (
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -119,6 +120,14 @@ func runSimulate(f *Factory, o *simulateOptions) error {
 		return withCode(exitError, fmt.Errorf("simulate: --out %s: expected a .csv, .svg, .png or .pdf file", o.out))
 	}
 	sf, err := spin.ReadFile(o.file)
+	var fe spin.FileErrors
+	if errors.As(err, &fe) && len(fe) > 1 {
+		msgs := make([]string, len(fe))
+		for i, e := range fe {
+			msgs[i] = e.Error()
+		}
+		return withCode(exitError, errors.New(strings.Join(msgs, "\n")))
+	}
 	if err != nil {
 		return withCode(exitError, err)
 	}

@@ -120,6 +120,8 @@ func TestSimulateErrors(t *testing.T) {
 	dir := t.TempDir()
 	bad := filepath.Join(dir, "bad.toml")
 	os.WriteFile(bad, []byte("[[group]]\nname = \"a\"\nshift_ppm = 1\n[[coupling]]\nbetween = [\"a\", \"z\"]\nj_hz = 7\n"), 0o644)
+	bad2 := filepath.Join(dir, "bad2.toml")
+	os.WriteFile(bad2, []byte("[[group]]\nname = \"a\"\ncount = 0\n"), 0o644)
 	for _, tc := range []struct {
 		args []string
 		want string
@@ -130,6 +132,7 @@ func TestSimulateErrors(t *testing.T) {
 		{[]string{"simulate", "../../testdata/spins/ab.toml", "--field", "-3"}, "--field must be"},
 		{[]string{"simulate", "../../testdata/spins/ab.toml", "--out", "x.txt"}, "expected a .csv, .svg"},
 		{[]string{"simulate", filepath.Join(dir, "missing.toml")}, "no such file"},
+		{[]string{"simulate", bad2}, "bad2.toml:1: group[1].shift_ppm: missing shift\n" + bad2 + ":3: group[1].count"},
 	} {
 		code, _, errOut := simRun(tc.args, false)
 		if code != exitError || !strings.Contains(errOut, tc.want) {

@@ -122,7 +122,7 @@ func (es *esys) exactCost(c []int, maxSpins int) (float64, error) {
 		for i, g := range c {
 			names[i] = fmt.Sprintf("%q", es.g[g].name)
 		}
-		return 0, fmt.Errorf("spin: cluster of groups %s (%d nuclei, %d spin combinations, largest Mz block %.0f states) exceeds the exact-simulation limit of %d spins (block %.0f states): %w; use first-order mode (--mode first-order)",
+		return 0, fmt.Errorf("spin: cluster of groups %s (%d nuclei, %d composite-spin choices, largest Mz block %.0f states) exceeds the exact-simulation limit of %d spins (block %.0f states): %w; use first-order mode (--mode first-order)",
 			strings.Join(names, ", "), nuclei, ncombo, biggest, maxSpins, limit, ErrTooLarge)
 	}
 	return cost, nil
