@@ -27,7 +27,7 @@ const (
 	baselineMaxPoints = 4096 // decimated length for the smoother
 	baselineK         = 2.5  // residual threshold in units of the block noise
 	baselineDilate    = 2    // blocks on each side of a signal block also excluded
-	baselineIter      = 25   // maximum reweighting passes
+	baselineIter      = 15   // maximum reweighting passes (stop when ≤ 0.1 % of the weights change)
 	// baselinePeriodPPM is the shortest period (ppm) the baseline may follow:
 	// the smoother's half-power point, 2π·λ^(1/4) points.
 	baselinePeriodPPM = 1.0
@@ -174,12 +174,14 @@ func estimateBaseline(y []float64, pointsPerPPM float64) baselineResult {
 		for i := range r {
 			r[i] = x[i] - z[i]
 		}
-		if it > 0 {
+		if it == 1 {
+			// The noise of the block means, measured once the first pass
+			// has removed most of the baseline.
 			if sg := madSigma(r); sg > 0 {
 				sigma = sg
 			}
 		}
-		if !reweight(w, r, baselineK*sigma) {
+		if reweight(w, r, baselineK*sigma) <= m/1000 && it > 1 {
 			break
 		}
 	}
@@ -191,8 +193,8 @@ func estimateBaseline(y []float64, pointsPerPPM float64) baselineResult {
 }
 
 // reweight sets w to 1 where r stays below limit and 0 at and around points
-// above it. It reports whether any weight changed.
-func reweight(w, r []float64, limit float64) bool {
+// above it. It returns how many weights changed.
+func reweight(w, r []float64, limit float64) int {
 	m := len(w)
 	nw := make([]float64, m)
 	for i := range nw {
@@ -205,10 +207,10 @@ func reweight(w, r []float64, limit float64) bool {
 			}
 		}
 	}
-	changed := false
+	changed := 0
 	for i := range w {
 		if w[i] != nw[i] {
-			changed = true
+			changed++
 		}
 		w[i] = nw[i]
 	}
