@@ -1,7 +1,9 @@
 package predict
 
 import (
+	"syscall"
 	"testing"
+	"time"
 
 	"shiftwise/predict/spin"
 	"shiftwise/smiles"
@@ -23,6 +25,7 @@ func benchPredict(b *testing.B, smi string, heavy int, mode spin.Mode) {
 		b.Fatalf("%d heavy atoms, want %d", len(m.Atoms), heavy)
 	}
 	b.ReportAllocs()
+	c0 := cpuTime()
 	for b.Loop() {
 		m, err := smiles.Parse(smi)
 		if err != nil {
@@ -32,6 +35,20 @@ func benchPredict(b *testing.B, smi string, heavy int, mode spin.Mode) {
 			b.Fatal(err)
 		}
 	}
+	if c := cpuTime() - c0; c > 0 {
+		b.ReportMetric(float64(c.Nanoseconds())/float64(b.N), "cpu-ns/op")
+	}
+}
+
+// cpuTime returns the user+system CPU time of the process: on a loaded
+// machine it is a steadier measure than the wall clock (run with
+// GOMAXPROCS=1 so that it counts one thread's work plus the GC's).
+func cpuTime() time.Duration {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		return 0
+	}
+	return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
 }
 
 // BenchmarkPredict30 predicts a 30-heavy-atom molecule end to end (parse +
