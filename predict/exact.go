@@ -81,9 +81,11 @@ func (s *system) groupJ(ss spinSystem, a, b, nH int) float64 {
 // Bounds on the number of protons in one coupled cluster: in Auto mode a
 // larger strongly coupled cluster is computed first-order (with a warning),
 // in Exact mode a larger coupled cluster is refused. Exact simulation cost
-// grows about eightfold per added spin; 10 keeps a cluster in milliseconds.
+// grows about eightfold per added spin; 8 distinct protons (largest block 70
+// states) keep a cluster in milliseconds, 10 already take ~0.2 s of CPU
+// (see BENCHMARKS.md, spin Cluster10).
 const (
-	autoMaxNuclei  = 10
+	autoMaxNuclei  = 8
 	exactMaxNuclei = 14
 	strongRatio    = spin.DefaultStrongRatio
 	farShiftPPM    = 1000 // where oversized clusters are parked (see exactLines)
