@@ -17,13 +17,20 @@ func (p *parser) build() *graph.Mol {
 		}
 	}
 	bondIdx := make([]int, len(p.bonds))
+	var hdirs []hDir
 	for bi, b := range p.bonds {
 		bondIdx[bi] = -1
 		switch {
 		case fold[b.a]:
 			p.foldInto(m, newIdx[b.b], b.b, bi)
+			if b.dir != graph.DirNone {
+				hdirs = append(hdirs, hDir{newIdx[b.b], flipDir(b.dir)})
+			}
 		case fold[b.b]:
 			p.foldInto(m, newIdx[b.a], b.a, bi)
+			if b.dir != graph.DirNone {
+				hdirs = append(hdirs, hDir{newIdx[b.a], b.dir})
+			}
 		default:
 			bondIdx[bi] = m.AddBond(graph.Bond{A: newIdx[b.a], B: newIdx[b.b], Order: b.order,
 				Aromatic: b.arom, Dir: b.dir, Pos: b.pos})
@@ -42,7 +49,51 @@ func (p *parser) build() *graph.Mol {
 		}
 		m.ReorderBonds(newIdx[i], order)
 	}
+	for _, hd := range hdirs {
+		transferHDir(m, hd)
+	}
 	return m
+}
+
+// hDir is the '/' or '\' mark of a folded [H], as seen from its heavy atom.
+type hDir struct {
+	atom int
+	dir  graph.BondDir
+}
+
+func flipDir(d graph.BondDir) graph.BondDir {
+	switch d {
+	case graph.DirUp:
+		return graph.DirDown
+	case graph.DirDown:
+		return graph.DirUp
+	}
+	return d
+}
+
+// transferHDir keeps the double-bond geometry that a folded [H] carried
+// ([H]/C(F)=C/F): the other single bond at that end of the double bond,
+// if unmarked, gets the opposite mark, which says the same thing.
+func transferHDir(m *graph.Mol, hd hDir) {
+	var other []int
+	hasDouble := false
+	for _, bi := range m.BondsOf(hd.atom) {
+		switch b := &m.Bonds[bi]; {
+		case b.Order == 2 && !b.Aromatic:
+			hasDouble = true
+		case b.Order == 1 && !b.Aromatic:
+			other = append(other, bi)
+		}
+	}
+	if !hasDouble || len(other) != 1 || m.Bonds[other[0]].Dir != graph.DirNone {
+		return
+	}
+	b := &m.Bonds[other[0]]
+	if b.A == hd.atom {
+		b.Dir = flipDir(hd.dir)
+	} else {
+		b.Dir = hd.dir
+	}
 }
 
 // foldableH marks [H] atoms (isotope 0 or 1, no charge, no H count) with a

@@ -259,3 +259,22 @@ func TestNoPerceive(t *testing.T) {
 		t.Errorf("NoPerceive: %v, %v", m, err)
 	}
 }
+
+// A '/' or '\' on a folded [H] keeps its meaning: [H]/C(F)=C/F (H trans to
+// the far F) is C(/F)=C/F, the cis-difluoro isomer of spec 3.9.3.
+func TestFoldedHydrogenBondDir(t *testing.T) {
+	t.Parallel()
+	a, err := Parse(`[H]/C(F)=C/F`)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := Parse(`C(/F)=C/F`)
+	if err != nil {
+		t.Fatal(err)
+	}
+	da := dirFrom(&a.Bonds[a.BondBetween(0, 1)], 0)
+	db := dirFrom(&b.Bonds[b.BondBetween(0, 1)], 0)
+	if da != db || da == graph.DirNone {
+		t.Errorf("C–F mark seen from C: %v, want %v as in C(/F)=C/F", da, db)
+	}
+}
