@@ -358,6 +358,21 @@ func TestRefuseLarge(t *testing.T) {
 	}
 }
 
+// TestRefuseManyLines: first-order splitting by many large partner groups
+// with distinct couplings is refused rather than exhausting memory.
+func TestRefuseManyLines(t *testing.T) {
+	t.Parallel()
+	sys := System{Groups: []Group{{Name: "x", ShiftPPM: 5, Count: 1}}}
+	for i := 1; i <= 6; i++ {
+		sys.Groups = append(sys.Groups, Group{Name: string(rune('a' + i)), ShiftPPM: float64(i), Count: 60})
+		sys.Couplings = append(sys.Couplings, Coupling{0, i, 1 + 0.731*math.Sqrt(float64(i)+0.5)})
+	}
+	_, err := Simulate(sys, Options{FieldMHz: 400, Mode: FirstOrder})
+	if !errors.Is(err, ErrTooLarge) {
+		t.Fatalf("error %v, want ErrTooLarge", err)
+	}
+}
+
 // chain returns n distinct count-1 protons step ppm apart, each coupled to
 // its neighbours (7 Hz) and next-neighbours (1.5 Hz): one strongly coupled
 // cluster at 400 MHz for small steps.

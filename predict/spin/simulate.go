@@ -20,6 +20,9 @@ const (
 	DefaultMaxSpins = 12
 	// MaxCount is the largest Count accepted for one group.
 	MaxCount = 64
+	// MaxLines bounds first-order splitting: a splitting step that would
+	// give more lines than this is refused with ErrTooLarge.
+	MaxLines = 1 << 21
 
 	mergeTolHz    = 1e-3 // lines closer than this are one line (far below any line width)
 	equivTolPPM   = 1e-9 // shift tolerance for magnetic equivalence
@@ -35,8 +38,8 @@ var ErrTooLarge = errors.New("cluster too large for exact simulation")
 
 // Simulate computes the 1H line spectrum of sys. It returns an error for an
 // invalid system or options, and one wrapping ErrTooLarge when a cluster
-// exceeds the exact-simulation bound. Lines are sorted by group, then by
-// frequency.
+// exceeds the exact-simulation bound or splitting would exceed MaxLines
+// lines. Lines are sorted by group, then by frequency.
 func Simulate(sys System, opt Options) (*Result, error) {
 	if err := validate(sys, opt); err != nil {
 		return nil, err
@@ -312,7 +315,8 @@ func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, float64, error
 	if len(c) == 1 && opt.Mode != Exact {
 		g := c[0]
 		lines := []rawLine{{hz: es.g[g].nu, inten: float64(es.g[g].n), eg: g}}
-		return es.splitBy(lines, ps), 0, nil
+		lines, err := es.splitBy(lines, ps)
+		return lines, 0, err
 	}
 	cost, err := es.exactCost(c, opt.MaxSpins)
 	if err != nil {
@@ -334,14 +338,18 @@ func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, float64, error
 	if err != nil {
 		return nil, 0, err
 	}
-	return es.splitBy(mergeRaw(lines), ps[k:]), dropped, nil
+	lines, err = es.splitBy(mergeRaw(lines), ps[k:])
+	return lines, dropped, err
 }
 
 // splitBy splits every line first-order by the partners ps, using the
 // coupling between the line's group and each partner.
-func (es *esys) splitBy(lines []rawLine, ps []int) []rawLine {
+func (es *esys) splitBy(lines []rawLine, ps []int) ([]rawLine, error) {
 	for _, p := range ps {
 		n := es.g[p].n
+		if len(lines)*(n+1) > MaxLines {
+			return nil, fmt.Errorf("spin: splitting by group %q would give more than %d lines: %w", es.g[p].name, MaxLines, ErrTooLarge)
+		}
 		w := binomialWeights(n)
 		out := make([]rawLine, 0, len(lines)*(n+1))
 		for _, l := range lines {
@@ -357,7 +365,7 @@ func (es *esys) splitBy(lines []rawLine, ps []int) []rawLine {
 		}
 		lines = mergeRaw(out)
 	}
-	return lines
+	return lines, nil
 }
 
 // binomialWeights returns C(n,k)/2^n for k = 0..n (Pascal's triangle).
