@@ -138,9 +138,16 @@ func distinctJ(s predict.Signal) []float64 {
 
 // jCost compares the largest predicted couplings with the measured ones
 // (both largest first): 0 when within JTolHz, growing to 2.
+//
+// When the two sides have different numbers of couplings the patterns
+// differ, which the multiplicity term already counts: then only the
+// largest couplings are compared, at half weight.
 func jCost(pred []float64, meas []float64) float64 {
 	if len(pred) == 0 || len(meas) == 0 {
 		return 0
+	}
+	if len(pred) != len(meas) {
+		return 0.5 * jCost(pred[:1], largest(meas))
 	}
 	m := append([]float64(nil), meas...)
 	sort.Sort(sort.Reverse(sort.Float64Slice(m)))
@@ -203,4 +210,13 @@ func signalMultCost(s predict.Signal, meas string, nhOf map[string]int) float64 
 		return 0.4
 	}
 	return c
+}
+
+// largest returns the largest value of xs as a one-element slice.
+func largest(xs []float64) []float64 {
+	m := xs[0]
+	for _, x := range xs[1:] {
+		m = math.Max(m, x)
+	}
+	return []float64{m}
 }
