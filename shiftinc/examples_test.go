@@ -70,6 +70,15 @@ func TestHandbookExamples(t *testing.T) {
 		{"crotonaldehyde CHO", "C/C=C/C=O", 3, -1, 9.50, "Pretsch 4th ed., aldehydes; value from memory"},
 		{"ethyl cinnamate H3", "CCOC(=O)/C=C/c1ccccc1", 6, -1, 7.69, "Pretsch 4th ed., alkenes; value from memory"},
 		{"ethyl cinnamate H2", "CCOC(=O)/C=C/c1ccccc1", 5, -1, 6.44, "Pretsch 4th ed., alkenes; value from memory"},
+		{"ethyl vinyl ether OCH=", "C=COCC", 1, -1, 6.47, "Pretsch 4th ed., alkenes; value from memory"},
+		{"ethyl vinyl ether H cis to OEt", "C=COCC", 0, 0, 4.17, "Pretsch 4th ed., alkenes (the H with J 14 Hz to OCH=); value from memory"},
+		{"ethyl vinyl ether H trans to OEt", "C=COCC", 0, 1, 3.97, "Pretsch 4th ed., alkenes (the H with J 7 Hz to OCH=); value from memory"},
+		{"vinyl acetate OCH=", "C=COC(C)=O", 1, -1, 7.27, "Pretsch 4th ed., alkenes; value from memory"},
+		{"vinyl acetate H cis to OAc", "C=COC(C)=O", 0, 0, 4.88, "Pretsch 4th ed., alkenes; value from memory"},
+		// Formyl and alkyne C–H.
+		{"DMF CHO", "CN(C)C=O", 3, -1, 8.02, "Gottlieb et al. 1997 (CDCl3); value from memory"},
+		{"ethyl formate HCOO", "CCOC=O", 3, -1, 8.03, "Pretsch 4th ed., esters; value from memory"},
+		{"1-hexyne ≡CH", "C#CCCCC", 0, -1, 1.94, "Pretsch 4th ed., alkynes; value from memory"},
 		// Benzenes: ortho/meta/para increments.
 		{"nitrobenzene ortho", "O=[N+]([O-])c1ccccc1", 4, -1, 8.23, "issue 3 / Pretsch 4th ed., benzenes; value from memory"},
 		{"nitrobenzene meta", "O=[N+]([O-])c1ccccc1", 5, -1, 7.56, "issue 3 / Pretsch 4th ed., benzenes; value from memory"},
