@@ -29,7 +29,7 @@ const (
 	equivTolHz    = 1e-9 // coupling tolerance for magnetic equivalence
 	maxConfigs    = 16   // X-approximation configurations per cluster
 	minIntensity  = 1e-12
-	maxSpinsLimit = 20 // MaxSpins above this is refused outright
+	maxSpinsLimit = 16 // MaxSpins above this is refused outright (block 12870 states, 1.3 GB per matrix)
 )
 
 // ErrTooLarge is wrapped by the error Simulate returns when a cluster is too

@@ -77,7 +77,7 @@ type Options struct {
 	// MaxSpins bounds exact simulation: a cluster whose largest Mz block is
 	// bigger than that of MaxSpins distinct spin-1/2 nuclei, or whose total
 	// diagonalisation work exceeds theirs, is refused with an error that
-	// suggests first-order mode. Zero means DefaultMaxSpins (12); at most 20.
+	// suggests first-order mode. Zero means DefaultMaxSpins (12); at most 16.
 	MaxSpins int
 }
 
