@@ -8,6 +8,7 @@ import (
 
 	"shiftwise/graph"
 	"shiftwise/jrules"
+	"shiftwise/shiftinc"
 )
 
 // envState is one observed environment with its shift and first-order
@@ -60,6 +61,7 @@ type system struct {
 func newSystem(m *graph.Mol, opt Options) *system {
 	s := &system{m: m}
 	exchanged := opt.Solvent == "D2O" || opt.Solvent == "CD3OD"
+	est := opt.Rules.Protons(m, opt.Solvent) // shares look-ups across protons
 	for _, e := range m.Environments() {
 		if e.Exchangeable && exchanged {
 			s.warnings = append(s.warnings, fmt.Sprintf(
@@ -67,7 +69,7 @@ func newSystem(m *graph.Mol, opt Options) *system {
 			continue
 		}
 		st := envState{env: e, first: len(s.protons)}
-		st.shift, st.sd, st.low, st.rules = shiftOf(m, e, opt)
+		st.shift, st.sd, st.low, st.rules = shiftOf(e, est)
 		for _, p := range e.Protons {
 			s.protons = append(s.protons, p)
 			s.envOf = append(s.envOf, len(s.envs))
@@ -84,7 +86,7 @@ func newSystem(m *graph.Mol, opt Options) *system {
 
 // shiftOf averages the increment estimates of an environment's protons:
 // the SD combines the mean variance of the estimates with their spread.
-func shiftOf(m *graph.Mol, e graph.Environment, opt Options) (ppm, sd float64, low bool, rules []string) {
+func shiftOf(e graph.Environment, ests map[graph.Proton]shiftinc.Estimate) (ppm, sd float64, low bool, rules []string) {
 	var sum, sumSq, varSum float64
 	seen := map[string]bool{}
 	n := 0
@@ -93,7 +95,7 @@ func shiftOf(m *graph.Mol, e graph.Environment, opt Options) (ppm, sd float64, l
 			continue // protons of one atom in one environment are equivalent
 		}
 		n++
-		est := opt.Rules.Proton(m, p, opt.Solvent)
+		est := ests[p]
 		sum += est.PPM
 		sumSq += est.PPM * est.PPM
 		varSum += est.SD * est.SD
