@@ -54,6 +54,10 @@ const (
 	// tmsMinSNR: in auto mode a TMS line must be at least this strong (an
 	// added standard, not a trace).
 	tmsMinSNR = 20.0
+	// tmsMaxLines: the TMS multiplet is labelled only when it is a singlet,
+	// possibly with two unflagged 29Si satellites or skirt lines; a larger
+	// group holds other signals too.
+	tmsMaxLines = 3
 	// residualSpreadPPM: residual signals move with concentration and
 	// temperature by a few hundredths of a ppm (the caveat of Gottlieb et
 	// al. 1997 and Fulmer et al. 2010; the size is our judgement). In auto
@@ -142,7 +146,7 @@ func reference(gs []group, ls []line, sol Solvent, haveSol bool, mode string, fi
 	if haveSol {
 		sk, sobs, sok = findSolvent(gs, ls, sol)
 	}
-	if tk >= 0 {
+	if tk >= 0 && len(gs[tk].lines) <= tmsMaxLines {
 		gs[tk].label = LabelTMS
 	}
 	if sk >= 0 && sk != tk {

@@ -113,7 +113,7 @@ func newPeaksCmd(f *Factory) *cobra.Command {
 	fl.StringVar(&o.reference, "reference", spectrum.RefAuto, "axis reference: auto, tms, solvent or none")
 	fl.Float64Var(&o.minSNR, "min-snr", spectrum.DefaultMinSNR, "peak-picking threshold in noise standard deviations")
 	fl.StringVar(&o.integralRef, "integral-ref", "", "set the multiplet at PPM to NH protons: PPM=NH or #K=NH")
-	fl.Float64Var(&o.fieldMHz, "field-mhz", 0, "observe frequency in MHz (default: from the file)")
+	fl.Float64Var(&o.fieldMHz, "field-mhz", 0, "observe frequency in MHz (overrides the file's; needed for a file with X in Hz and no frequency)")
 	fl.BoolVar(&o.json, "json", false, "print JSON")
 	return cmd
 }
@@ -123,7 +123,7 @@ func runPeaks(f *Factory, o *peaksOptions) error {
 	if err != nil {
 		return withCode(exitError, err)
 	}
-	s, err := spectrum.ReadFile(o.file)
+	s, err := spectrum.ReadFileWith(o.file, spectrum.ReadOptions{FieldMHz: o.fieldMHz})
 	if err != nil {
 		return withCode(exitError, err)
 	}
