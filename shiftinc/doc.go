@@ -75,9 +75,10 @@
 //	sd = 0.2
 //	source = "my measurements"
 //
-// A user row replaces the whole embedded row of the same section and key,
-// so give every value field (missing ones count as 0). Keys the classifier
-// never produces are accepted but have no effect. Malformed files give an
+// A user row with the key of an existing row changes only the fields it
+// gives (e.g. just ch3, or just sd); a row with a new key adds it, with
+// missing value fields counting as 0. Keys the classifier never produces
+// are accepted but have no effect. Malformed files give an
 // *Error printed as "file:line: key: message".
 //
 // # Uncertainty

@@ -266,9 +266,19 @@ func (t *Table) Merge(r io.Reader, name string) error {
 	if err := next.addParams(f.Params, name, lines); err != nil {
 		return err
 	}
+	// Which fields each row sets, so that a row overriding an existing key
+	// changes only the values it gives.
+	var present map[string]any
+	if _, err := toml.NewDecoder(bytes.NewReader(data)).Decode(&present); err != nil {
+		return &Error{File: name, Msg: err.Error()}
+	}
 	for _, s := range sections {
+		given, _ := present[s].([]map[string]any)
 		for i := range f.section(s) {
 			row := f.section(s)[i]
+			if old := next.row(s, row.Key); old != nil && i < len(given) {
+				row = overlay(*old, row, given[i])
+			}
 			row.file, row.line = name, lines.rowLine(s, i)
 			if err := next.addRow(s, row); err != nil {
 				return err
@@ -477,4 +487,51 @@ func (li lineIndex) keyLine(k toml.Key) int {
 		}
 	}
 	return 0
+}
+
+// overlay returns base with the fields of upd that the file gave (set)
+// copied over.
+func overlay(base, upd Row, set map[string]any) Row {
+	out := base
+	for k := range set {
+		switch k {
+		case "ppm":
+			out.PPM = upd.PPM
+		case "ch3":
+			out.CH3 = upd.CH3
+		case "ch2":
+			out.CH2 = upd.CH2
+		case "ch":
+			out.CH = upd.CH
+		case "gem":
+			out.Gem = upd.Gem
+		case "cis":
+			out.Cis = upd.Cis
+		case "trans":
+			out.Trans = upd.Trans
+		case "ortho":
+			out.Ortho = upd.Ortho
+		case "meta":
+			out.Meta = upd.Meta
+		case "para":
+			out.Para = upd.Para
+		case "ring":
+			out.Ring = upd.Ring
+		case "sd":
+			out.SD = upd.SD
+		case "source":
+			out.Source = upd.Source
+		case "damping":
+			out.Damping = upd.Damping
+		case "by_solvent":
+			out.BySolvent = upd.BySolvent
+		case "aliases":
+			out.Aliases = upd.Aliases
+		case "extra_sd":
+			out.ExtraSD = upd.ExtraSD
+		case "offset":
+			out.Offset = upd.Offset
+		}
+	}
+	return out
 }

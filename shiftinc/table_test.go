@@ -55,7 +55,7 @@ func TestMergeErrors(t *testing.T) {
 		{"type", "[[alpha]]\nkey = \"X\"\nch3 = \"abc\"\nsource = \"s\"\n", "user.toml:3:"},
 		{"unknown key", "[[alpha]]\nkey = \"X\"\nsource = \"s\"\nsd = 0.1\nfoo = 1\n", "user.toml:5: alpha.foo: unknown key"},
 		{"unknown section", "[[gamma]]\nkey = \"X\"\n", "user.toml:1: gamma"},
-		{"no source", "[[benzene]]\nkey = \"A\"\northo = 1\nsource = \"s\"\nsd = 0.1\n\n[[benzene]]\nkey = \"B\"\northo = 1\n", "user.toml:7: benzene.B: row without source"},
+		{"no source", "[[benzene]]\nkey = \"A\"\northo = 1\nsource = \"s\"\nsd = 0.1\n\n[[benzene]]\nkey = \"ZZ\"\northo = 1\n", "user.toml:7: benzene.ZZ: row without source"},
 		{"no key", "[[beta]]\nsource = \"s\"\n", "user.toml:1: beta: row without key"},
 		{"bad sd", "[[beta]]\nkey = \"Z\"\nsd = -1\nsource = \"s\"\n", "user.toml:1: beta.Z: uncertainty"},
 		{"bad ring", "[[hetero]]\nkey = \"h\"\nring = \"c q c c c\"\nppm = 7\nsd = 0.1\nsource = \"s\"\n", "user.toml:1: hetero.h: ring:"},
@@ -112,6 +112,16 @@ func TestOverride(t *testing.T) {
 	}
 	if r := tab.row("alpha", "Cl"); r.Where() != path+":1" {
 		t.Errorf("Where() = %q", r.Where())
+	}
+	// A partial row changes only the fields it gives.
+	part := Default().Clone()
+	if err := part.Merge(strings.NewReader("[[alpha]]\nkey = \"Cl\"\nch3 = 2.50\n"), "part.toml"); err != nil {
+		t.Fatal(err)
+	}
+	r := part.row("alpha", "Cl")
+	def := Default().row("alpha", "Cl")
+	if r.CH3 != 2.50 || r.CH2 != def.CH2 || r.CH != def.CH || r.SD != def.SD || r.Source != def.Source {
+		t.Errorf("partial override: %+v", *r)
 	}
 	if _, err := Load(filepath.Join(t.TempDir(), "missing.toml")); err == nil {
 		t.Error("Load of a missing file: no error")
