@@ -143,14 +143,29 @@ func (s *system) couple(opt Options) {
 	n := len(s.protons)
 	s.jhh = make([]jrules.J, n*n)
 	near := s.nearAtoms(3)
+	// The coupling depends on the protons' indices only across a C=C
+	// (cis/trans); elsewhere one estimate serves every pair of two atoms.
+	type cached struct {
+		j  jrules.J
+		ok bool
+	}
+	cache := map[[2]int]cached{}
 	for i := 0; i < n; i++ {
 		for k := i + 1; k < n; k++ {
 			p, q := s.protons[i], s.protons[k]
 			if !near[p.Atom*len(s.m.Atoms)+q.Atom] {
 				continue
 			}
-			if j, ok := jrules.BetweenIn(s.m, p, q, opt.Solvent); ok {
-				s.jhh[i*n+k], s.jhh[k*n+i] = j, j
+			key := [2]int{p.Atom, q.Atom}
+			c, hit := cache[key]
+			if !hit {
+				c.j, c.ok = jrules.BetweenIn(s.m, p, q, opt.Solvent)
+				if !s.doubleBonded(p.Atom, q.Atom) {
+					cache[key] = c
+				}
+			}
+			if c.ok {
+				s.jhh[i*n+k], s.jhh[k*n+i] = c.j, c.j
 			}
 		}
 	}
@@ -162,6 +177,13 @@ func (s *system) couple(opt Options) {
 			}
 		}
 	}
+}
+
+// doubleBonded reports whether atoms a and b are joined by a non-aromatic
+// double bond.
+func (s *system) doubleBonded(a, b int) bool {
+	bi := s.m.BondBetween(a, b)
+	return bi >= 0 && s.m.Bonds[bi].Order == 2 && !s.m.Bonds[bi].Aromatic
 }
 
 // nearAtoms returns an atoms×atoms matrix: near[a*n+b] is true when b is
