@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"math"
 	"sort"
-
-	"gonum.org/v1/gonum/mat"
 )
 
 // Integration.
@@ -148,35 +146,16 @@ func lineAmplitudes(gs []group, ls []line, width []float64, fieldMHz float64) []
 	}
 	for _, g := range gs {
 		n := len(g.lines)
-		if n < 2 || n > maxDeconvolveLines {
+		if n < 2 || n > maxDeconvolveLines || !(width[g.lines[0]] > 0) {
 			continue
 		}
-		a := mat.NewDense(n, n, nil)
-		b := mat.NewVecDense(n, nil)
-		for r, i := range g.lines {
-			b.SetVec(r, ls[i].height)
-			for c, j := range g.lines {
-				gam := width[j] / 2
-				if !(gam > 0) {
-					gam = 1e-6
-				}
-				d := (ls[i].ppm - ls[j].ppm) * fieldMHz / gam
-				a.Set(r, c, 1/(1+d*d))
-			}
+		hz, h := make([]float64, n), make([]float64, n)
+		for k, i := range g.lines {
+			hz[k], h[k] = ls[i].ppm*fieldMHz, ls[i].height
 		}
-		var x mat.VecDense
-		if err := x.SolveVec(a, b); err != nil {
-			continue
-		}
-		ok := true
-		for r := range n {
-			if !(x.AtVec(r) > 0) {
-				ok = false
-			}
-		}
-		if ok {
-			for r, i := range g.lines {
-				amp[i] = x.AtVec(r)
+		if a, ok := unmixLorentz(hz, h, width[g.lines[0]]/2); ok {
+			for k, i := range g.lines {
+				amp[i] = a[k]
 			}
 		}
 	}

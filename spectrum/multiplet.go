@@ -4,6 +4,8 @@ import (
 	"math"
 	"sort"
 	"strings"
+
+	"gonum.org/v1/gonum/mat"
 )
 
 // Multiplets: grouping and first-order analysis.
@@ -28,7 +30,9 @@ import (
 // coupling at a time, the smallest coupling being the distance between the
 // first two components. When the whole group fails, the analysis is retried
 // without its weakest lines (below 4, then 10 % of the tallest, keeping
-// at least 90 % of the summed height). Equal couplings are merged into t, q, p, … and the
+// at least 90 % of the summed height), and once more on the line
+// amplitudes with the overlap of neighbouring Lorentzian lines removed
+// (unmixLorentz). Equal couplings are merged into t, q, p, … and the
 // name lists the couplings from the largest down ("dt": large doublet of
 // small triplets). A pattern that fails any step is "m".
 
@@ -108,10 +112,19 @@ func (g *group) analyze(ls []line, fieldMHz float64) {
 		}
 	}
 	tol := 0.25
+	var mw float64
 	if len(widths) > 0 {
-		tol = math.Max(tol, 0.3*median(widths))
+		mw = median(append([]float64(nil), widths...))
+		tol = math.Max(tol, 0.3*mw)
 	}
 	mult, js, center, ok := firstOrderTrimmed(hz, h, tol)
+	if !ok && mw > 0 && n <= maxDeconvolveLines {
+		// Partly overlapping lines lend each other height; their separated
+		// amplitudes show the binomial ratios.
+		if a, solved := unmixLorentz(hz, h, mw/2); solved {
+			mult, js, center, ok = firstOrderTrimmed(hz, a, tol)
+		}
+	}
 	if ok {
 		g.multiplicity, g.j, g.centerPPM = mult, js, center/fieldMHz
 		return
@@ -336,4 +349,31 @@ func splitMultiplicity(name string) ([]int, bool) {
 		}
 	}
 	return out, len(out) > 0
+}
+
+// unmixLorentz returns the amplitudes A of Lorentzian lines of half width
+// gamma (Hz) at positions hz whose sum has the heights h at the line
+// positions: Σⱼ Aⱼ/(1+((hzᵢ−hzⱼ)/γ)²) = hᵢ. ok is false when the system is
+// singular or an amplitude comes out non-positive.
+func unmixLorentz(hz, h []float64, gamma float64) ([]float64, bool) {
+	n := len(hz)
+	a := mat.NewDense(n, n, nil)
+	for r := range n {
+		for c := range n {
+			d := (hz[r] - hz[c]) / gamma
+			a.Set(r, c, 1/(1+d*d))
+		}
+	}
+	var x mat.VecDense
+	if err := x.SolveVec(a, mat.NewVecDense(n, append([]float64(nil), h...))); err != nil {
+		return nil, false
+	}
+	out := make([]float64, n)
+	for i := range out {
+		out[i] = x.AtVec(i)
+		if !(out[i] > 0) {
+			return nil, false
+		}
+	}
+	return out, true
 }

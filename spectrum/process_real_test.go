@@ -28,7 +28,7 @@ const (
 	// report printed by the test); they guard against regressions.
 	realMinCentreRate = 0.88
 	realMinRegionRate = 0.95
-	realMinJRate      = 0.44
+	realMinJRate      = 0.46
 )
 
 // readTSV reads a tab-separated file with a header into maps.
