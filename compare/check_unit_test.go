@@ -200,3 +200,65 @@ func TestCheckEdgeCases(t *testing.T) {
 		t.Error("no structure: no error")
 	}
 }
+
+// TestCheckConcurrent: screen runs Check in parallel; results must not
+// depend on it (run with -race to check for data races).
+func TestCheckConcurrent(t *testing.T) {
+	t.Parallel()
+	want, err := Check(Input{Smiles: "CCC(C)=O", Peaks: butanonePeaks()}, Options{Solvent: "CDCl3", Predictor: handPredictor(t)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	errs := make(chan error, 8)
+	for k := 0; k < 8; k++ {
+		go func() {
+			res, err := Check(Input{Smiles: "CCC(C)=O", Peaks: butanonePeaks(), Candidates: []string{"CC(C)C=O"}},
+				Options{Solvent: "CDCl3", Predictor: handPredictor(t)})
+			if err == nil && (res.Score != want.Score || res.Verdict != want.Verdict) {
+				err = fmt.Errorf("concurrent result %s %.3f, want %s %.3f", res.Verdict, res.Score, want.Verdict, want.Score)
+			}
+			errs <- err
+		}()
+	}
+	for k := 0; k < 8; k++ {
+		if err := <-errs; err != nil {
+			t.Error(err)
+		}
+	}
+}
+
+// TestCheckConcurrentDefault runs the default pipeline (parse, predict,
+// process) from several goroutines on one synthetic spectrum.
+func TestCheckConcurrentDefault(t *testing.T) {
+	t.Parallel()
+	c := refSet[0]
+	spec, err := refSpectrum(c, 400, 16384, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	errs := make(chan error, 4)
+	scores := make(chan float64, 4)
+	for k := 0; k < 4; k++ {
+		go func() {
+			res, err := Check(Input{Smiles: c.smiles, Spectrum: spec, Candidates: []string{c.wrong}}, Options{})
+			errs <- err
+			if err == nil {
+				scores <- res.Score
+			} else {
+				scores <- -1
+			}
+		}()
+	}
+	first := -2.0
+	for k := 0; k < 4; k++ {
+		if err := <-errs; err != nil {
+			t.Error(err)
+		}
+		s := <-scores
+		if first == -2 {
+			first = s
+		} else if s != first {
+			t.Errorf("concurrent scores differ: %g vs %g", s, first)
+		}
+	}
+}
