@@ -135,8 +135,9 @@ func (m *Mol) perceiveAromaticity() {
 			cand = append(cand, ri)
 		}
 	}
+	occ := make([]int, len(m.Atoms)) // scratch for aromaticSystem
 	for _, sys := range rs.fusedGroups(cand) {
-		m.aromaticSystem(rs, sys, elec)
+		m.aromaticSystem(rs, sys, elec, occ)
 	}
 }
 
@@ -193,11 +194,17 @@ func (rs ringSet) fusedGroups(cand []int) [][]int {
 
 // aromaticSystem runs the Hückel test on the connected combinations of the
 // rings of one fused system.
-func (m *Mol) aromaticSystem(rs ringSet, sys []int, elec []int) {
-	total := map[int]bool{}
-	for _, ri := range sys {
+func (m *Mol) aromaticSystem(rs ringSet, sys, elec, occ []int) {
+	total := 0 // distinct bonds of the system
+	for i, ri := range sys {
 		for _, b := range rs.bonds[ri] {
-			total[b] = true
+			seen := false
+			for _, rj := range sys[:i] {
+				seen = seen || slices.Contains(rs.bonds[rj], b)
+			}
+			if !seen {
+				total++
+			}
 		}
 	}
 	done := 0
@@ -212,23 +219,25 @@ func (m *Mol) aromaticSystem(rs ringSet, sys []int, elec []int) {
 			}
 		}
 	}
-	occ := make(map[int]int)
 	test := func(combo []int) {
-		clear(occ)
 		for _, ri := range combo {
 			for _, a := range rs.atoms[ri] {
 				occ[a]++
 			}
 		}
 		sum, wild, real := 0, 0, false
-		for a, n := range occ {
-			switch {
-			case n > 2:
-			case elec[a] == wildPi:
-				wild++
-			default:
-				sum += elec[a]
-				real = true
+		for _, ri := range combo {
+			for _, a := range rs.atoms[ri] {
+				n := occ[a]
+				occ[a] = 0 // count each atom once, and reset the scratch
+				switch {
+				case n == 0, n > 2:
+				case elec[a] == wildPi:
+					wild++
+				default:
+					sum += elec[a]
+					real = true
+				}
 			}
 		}
 		if real && huckelRange(sum, wild) {
@@ -243,7 +252,7 @@ func (m *Mol) aromaticSystem(rs ringSet, sys []int, elec []int) {
 		level = append(level, []int{ri})
 	}
 	for k := 1; k <= maxFused && len(level) > 0; k++ {
-		if done >= len(total) || (k > 2 && len(sys) > 300) {
+		if done >= total || (k > 2 && len(sys) > 300) {
 			return
 		}
 		for _, combo := range level {
