@@ -111,6 +111,9 @@ func runPredict(f *Factory, o *predictOptions) error {
 	case f.IsTTY:
 		return predictTable(f.Out, p)
 	}
+	for _, wn := range p.Warnings {
+		fmt.Fprintln(f.Err, "shiftwise: note:", wn)
+	}
 	return predictTSV(f.Out, p)
 }
 
