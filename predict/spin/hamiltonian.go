@@ -3,6 +3,9 @@ package spin
 import (
 	"errors"
 	"math"
+	"runtime"
+	"sync"
+	"sync/atomic"
 
 	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
@@ -128,25 +131,55 @@ type sink struct {
 }
 
 // transitions appends the lines of spins to dst (raw intensities, which sum
-// to Tr(F+F−) over the product basis, times dst.scale).
+// to Tr(F+F−) over the product basis, times dst.scale). Blocks are
+// diagonalised, and the lines between neighbouring blocks computed, on up to
+// GOMAXPROCS goroutines; the result does not depend on their number.
 func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 	if len(spins) == 0 {
 		return nil
 	}
 	b := newBasis(spins)
-	cur, err := b.diagonalise(0, jm)
-	if err != nil {
+	nb := len(b.blocks)
+	eig := make([]eigen, nb)
+	errs := make([]error, nb)
+	parallel(nb, func(blk int) { eig[blk], errs[blk] = b.diagonalise(blk, jm) })
+	if err := errors.Join(errs...); err != nil {
 		return err
 	}
-	for blk := 0; blk+1 < len(b.blocks); blk++ {
-		next, err := b.diagonalise(blk+1, jm)
-		if err != nil {
-			return err
-		}
-		b.lines(blk, cur, next, dst)
-		cur = next
+	parts := make([]sink, nb-1)
+	parallel(nb-1, func(blk int) {
+		parts[blk] = sink{scale: dst.scale, eg: dst.eg}
+		b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
+	})
+	for _, p := range parts {
+		dst.out = append(dst.out, p.out...)
+		dst.dropped += p.dropped
 	}
 	return nil
+}
+
+// parallel calls fn(0) … fn(n−1) on up to GOMAXPROCS goroutines, handing
+// out the indices in order, and returns when all calls have returned.
+func parallel(n int, fn func(i int)) {
+	workers := min(runtime.GOMAXPROCS(0), n)
+	if workers <= 1 {
+		for i := 0; i < n; i++ {
+			fn(i)
+		}
+		return
+	}
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := int(next.Add(1)) - 1; i < n; i = int(next.Add(1)) - 1 {
+				fn(i)
+			}
+		}()
+	}
+	wg.Wait()
 }
 
 // Thresholds for reporting transitions (raw |<b|F−|a>|², of order 1 for an
