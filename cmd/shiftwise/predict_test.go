@@ -142,3 +142,15 @@ func TestPredictOut(t *testing.T) {
 		}
 	}
 }
+
+// TestPredictBadRules: a malformed rules file exits 1 naming file and line.
+func TestPredictBadRules(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "bad.toml")
+	if err := os.WriteFile(path, []byte("this is = not [valid\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, errOut := predictRun([]string{"CC", "--rules", path}, false)
+	if code != 1 || !strings.Contains(errOut, path+":1:") {
+		t.Errorf("exit %d, stderr %q; want 1 and %s:1:", code, errOut, path)
+	}
+}
