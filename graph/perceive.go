@@ -8,6 +8,13 @@ import "slices"
 // and perceives aromaticity on the Kekulé form, so that benzene written
 // C1=CC=CC=C1 ends up aromatic like c1ccccc1.
 //
+// Two clean-ups happen on the way, as RDKit does them: an aromatic nitrogen
+// written with a double bond to oxygen (O=n1ccccc1) becomes the
+// charge-separated N-oxide, and a wildcard '*' bonded into an aromatic ring
+// stands for an aromatic atom that may or may not take a double bond.
+// Aromaticity follows RDKit's default model (see perceiveAromaticity), the
+// reference the project is checked against.
+//
 // It returns nil or the first problem as a *AtomError; PerceiveAll returns
 // all of them. Perceive may be called again after the molecule changes.
 func (m *Mol) Perceive() error {
