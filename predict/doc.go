@@ -15,8 +15,12 @@
 // The J list of a signal (Signal.Couplings) is first-order: one entry per
 // partner environment, with the number of partners taken as the protons of
 // that environment that couple resolvably (|J| ≥ 0.5 Hz) with a
-// representative member, and J their mean. A para-disubstituted benzene's
-// ring protons therefore read "d, 8 Hz" rather than a triplet.
+// representative member, and J their mean. Members coupling very
+// differently (ortho 8 Hz and para 0.5 Hz partners of an AA'XX' proton)
+// form separate entries, so a para-disubstituted benzene's ring protons
+// read "d, 8 Hz" rather than a triplet. Coupling.JHz, JMin and JMax are
+// magnitudes (|J|, in Hz, to 0.1 Hz); the signs (negative geminal ²J,
+// allylic ⁴J) are kept for the exact simulation.
 //
 // # Modes
 //
@@ -27,9 +31,13 @@
 // only chemically equivalent (the AA'BB' sets of a para-disubstituted
 // benzene) is split into one group per proton with its own couplings, and
 // the lines are merged back by signal. 19F and 31P are heteronuclear groups
-// that couple but produce no 1H lines. In Auto mode a cluster too large to
-// simulate exactly falls back to first-order with a warning; in Exact mode
-// it is an error.
+// that couple but produce no 1H lines. Couplings below 0.7 Hz are left out
+// of the simulation (they vanish in the line width and would join large
+// clusters). In Auto mode a strongly coupled cluster (|Δν| < 10|J|) of more
+// than 8 protons is computed first-order, with a warning, and any failure
+// of the simulation falls back to first-order for the whole molecule; in
+// Exact mode a coupled cluster of more than 14 protons is refused with an
+// error suggesting another mode.
 //
 // # Multiplicity names
 //
