@@ -26,9 +26,10 @@ const (
 	realJTolHz      = 0.5  // couplings agree within this
 	// Floors at the levels reached when this test was written (see the
 	// report printed by the test); they guard against regressions.
-	realMinCentreRate = 0.88
-	realMinRegionRate = 0.95
-	realMinJRate      = 0.46
+	realMinCentreRate   = 0.88
+	realMinRegionRate   = 0.95
+	realMinJRate        = 0.46
+	realMinIntegralRate = 0.55
 )
 
 // readTSV reads a tab-separated file with a header into maps.
@@ -294,4 +295,62 @@ func appendUnique(v []float64, x float64) []float64 {
 		}
 	}
 	return append(v, x)
+}
+
+// TestProcessRealIntegrals compares relative integrals with the dataset's
+// own analysis (multiplets_1h.tsv, integral_rel). Its ranges and ours
+// differ, so each spectrum's integrals are put on the dataset's scale by
+// the median ratio, and a multiplet agrees when it is then within 10 %.
+func TestProcessRealIntegrals(t *testing.T) {
+	dir, specs := processDataset(t)
+	type pair struct{ theirs, ours float64 }
+	pairs := map[string][]pair{}
+	files := map[string]string{}
+	for _, sp := range specs {
+		if strings.HasSuffix(sp.file, "/1h.dx") || files[sp.folder] == "" {
+			files[sp.folder] = sp.file
+		}
+	}
+	byFile := map[string]*PeakList{}
+	for _, sp := range specs {
+		byFile[sp.file] = sp.pl
+	}
+	for _, r := range readTSV(t, filepath.Join(dir, "multiplets_1h.tsv")) {
+		theirs, err1 := strconv.ParseFloat(r["integral_rel"], 64)
+		delta, err2 := strconv.ParseFloat(r["delta_ppm"], 64)
+		pl := byFile[files[r["folder"]]]
+		if err1 != nil || err2 != nil || pl == nil || !(theirs > 0) {
+			continue
+		}
+		if m := nearestMultiplet(pl, delta); m != nil && m.Integral > 0 {
+			pairs[r["folder"]] = append(pairs[r["folder"]], pair{theirs, m.Integral})
+		}
+	}
+	var n, agree int
+	for folder, ps := range pairs {
+		if len(ps) < 2 {
+			continue
+		}
+		ratios := make([]float64, len(ps))
+		for i, p := range ps {
+			ratios[i] = p.theirs / p.ours
+		}
+		k := median(ratios)
+		for _, p := range ps {
+			n++
+			if math.Abs(p.ours*k-p.theirs) <= 0.1*p.theirs {
+				agree++
+			} else {
+				t.Logf("%s: theirs %.3f, ours %.3f on their scale", folder, p.theirs, p.ours*k)
+			}
+		}
+	}
+	if n == 0 {
+		t.Fatal("no integrals compared")
+	}
+	rate := float64(agree) / float64(n)
+	t.Logf("integrals compared: %d; within 10%% of the dataset's (after per-spectrum scaling): %d (%.1f%%)", n, agree, 100*rate)
+	if rate < realMinIntegralRate {
+		t.Errorf("integral agreement %.3f below floor %.2f", rate, realMinIntegralRate)
+	}
 }
