@@ -30,7 +30,9 @@
 //   - vinyl cis and trans ³J: ethylene (11.6 and 19.1 Hz) plus one
 //     increment per substituent on the two carbons (tables.go), clamped to
 //     the common ranges cis 6–12 Hz, trans 12–18 Hz; cis across a ring
-//     double bond by ring size;
+//     double bond by ring size; when the SMILES does not write the geometry
+//     (the graph assumes E), the range spans both the cis and the trans
+//     value;
 //   - aromatic ortho/meta/para, with ring-specific values for pyridine-like
 //     six-membered rings and furan, thiophene and pyrrole;
 //   - aldehyde H–C–C–H, diene single-bond ³J, allylic, propargylic,

@@ -156,15 +156,23 @@ func vinyl(m *graph.Mol, p, q graph.Proton, a, b int) J {
 			inc.trans += v.trans
 		}
 	}
+	cis := clamp(vinylCis0+inc.cis, 4, 12.5)
+	trans := clamp(vinylTrans0+inc.trans, 11, 19.1)
+	var j J
 	switch m.ProtonRelation(p, q) {
 	case graph.RelCis:
-		t := clamp(vinylCis0+inc.cis, 4, 12.5)
-		return J{t, t - vinylSpread, t + vinylSpread, 3, "3J vinyl cis, substituent-corrected"}
+		j = J{cis, cis - vinylSpread, cis + vinylSpread, 3, "3J vinyl cis, substituent-corrected"}
 	case graph.RelTrans:
-		t := clamp(vinylTrans0+inc.trans, 11, 19.1)
-		return J{t, t - vinylSpread, t + vinylSpread, 3, "3J vinyl trans, substituent-corrected"}
+		j = J{trans, trans - vinylSpread, trans + vinylSpread, 3, "3J vinyl trans, substituent-corrected"}
+	default:
+		return vinylUnknown.j(3)
 	}
-	return vinylUnknown.j(3)
+	if v, ok := m.AlkeneView(p); ok && !v.Known {
+		// The geometry was assumed (no / \ marks): the range covers both.
+		j.Min, j.Max = cis-vinylSpread, trans+vinylSpread
+		j.Rule += " (geometry not written, E assumed)"
+	}
+	return j
 }
 
 // substituentClass names the kind of substituent atom n on alkene carbon c

@@ -86,3 +86,19 @@ func TestVinylFluorine(t *testing.T) {
 		t.Errorf("geminal H-F = %+v, want ~80 Hz over 2 bonds", j)
 	}
 }
+
+// TestVinylGeometryAssumed: without / \ marks the cis/trans relation is
+// assumed, and the range must cover both the cis (~10 Hz) and the trans
+// (~16 Hz) value of a 1,2-disubstituted alkene (common practice, no source).
+func TestVinylGeometryAssumed(t *testing.T) {
+	t.Parallel()
+	m := parse(t, `CC=CC(=O)OC`)
+	j, ok := Between(m, h(1), h(2))
+	if !ok || j.Min > 10 || j.Max < 16 || !strings.Contains(j.Rule, "assumed") {
+		t.Errorf("J = %+v, want a range covering 10–16 Hz marked as assumed", j)
+	}
+	m = parse(t, `C/C=C/C(=O)OC`)
+	if j, _ := Between(m, h(1), h(2)); j.Min < 12 {
+		t.Errorf("written E geometry: J = %+v, want a trans-only range", j)
+	}
+}
