@@ -16,10 +16,12 @@ import (
 // the trace between them never falls below a quarter of the smaller peak (the
 // two lines overlap so much that no integral boundary can be drawn between
 // them), with 3σ as a floor — in both cases only when the new peak and the
-// tallest peak of the multiplet so far differ by less than groupMaxRatio (the outer line of a septet is 1/20 of its centre,
-// Pascal's triangle), so that small signals on the foot of a strong line
-// stay separate. Peaks flagged as artifacts (13C satellites,
-// spinning sidebands) are left out.
+// tallest peak of the multiplet so far differ by less than groupMaxRatio
+// (the outer line of a septet is 1/20 of its centre, Pascal's triangle), so
+// that small signals on the foot of a strong line stay separate. Peaks
+// flagged as artifacts (13C satellites, spinning sidebands, line-shape
+// skirts) are left out. A multiplet's centre is the midpoint of a
+// first-order pattern, else the height-weighted mean of its peaks.
 //
 // First-order analysis follows Hoye, Hanson & Vyvyan 1994 (J. Org. Chem. 59,
 // 4096, "A practical guide to first-order multiplet analysis in 1H NMR
