@@ -81,10 +81,12 @@ type Mol struct {
 	atomRings                  [][]int // per atom: indices into rings
 	kekulized                  bool
 	pi                         []bool // per atom: takes a double bond in the Kekulé form of a written aromatic system
+	symClasses                 []int  // SymmetryClasses, computed once by Perceive; nil when stale
 }
 
 // AddAtom appends an atom and returns its index.
 func (m *Mol) AddAtom(a Atom) int {
+	m.symClasses = nil
 	m.Atoms = append(m.Atoms, a)
 	if cap(m.adjPool)-len(m.adjPool) < 4 {
 		m.adjPool = make([]int, 0, 256)
@@ -104,6 +106,7 @@ func (m *Mol) AddBond(b Bond) int {
 	if b.A == b.B {
 		panic("graph: self bond")
 	}
+	m.symClasses = nil
 	m.Bonds = append(m.Bonds, b)
 	i := len(m.Bonds) - 1
 	m.adj[b.A] = append(m.adj[b.A], i)

@@ -29,6 +29,7 @@ func (m *Mol) Perceive() error {
 func (m *Mol) PerceiveAll() []*AtomError {
 	m.perceived = false
 	m.kekulized = false
+	m.symClasses = nil
 	m.pi = make([]bool, len(m.Atoms))
 	m.findRings()
 	errs := m.demoteAromatic()
@@ -42,6 +43,7 @@ func (m *Mol) PerceiveAll() []*AtomError {
 	}
 	m.perceiveAromaticity()
 	m.perceived = true
+	m.symClasses = m.computeSymmetryClasses()
 	return nil
 }
 

@@ -26,7 +26,17 @@ func bondCode(b *Bond) int {
 // Class numbers are dense (0 … k-1) and are ranks of the invariants, not of
 // the atom indices, so that they do not change when the atoms are renumbered.
 // Written stereo marks (@, @@, /, \) are not used.
+//
+// Perceive computes the classes once; later calls return a copy of them, so
+// the many callers (environments, alkene geometry, shift rules) pay nothing.
 func (m *Mol) SymmetryClasses() []int {
+	if m.symClasses != nil && len(m.symClasses) == len(m.Atoms) {
+		return slices.Clone(m.symClasses)
+	}
+	return m.computeSymmetryClasses()
+}
+
+func (m *Mol) computeSymmetryClasses() []int {
 	n := len(m.Atoms)
 	if n == 0 {
 		return []int{}
