@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"strings"
 	"testing"
 
@@ -259,6 +260,40 @@ func TestCheckConcurrentDefault(t *testing.T) {
 			first = s
 		} else if s != first {
 			t.Errorf("concurrent scores differ: %g vs %g", s, first)
+		}
+	}
+}
+
+// TestCheckRandomPeakLists: whatever processing hands over (odd ranges,
+// zero, negative or NaN integrals, stray peak indices), Check must not
+// panic and its Result must encode as JSON (no NaN or Inf).
+func TestCheckRandomPeakLists(t *testing.T) {
+	t.Parallel()
+	rng := rand.New(rand.NewPCG(5, 9))
+	odd := []float64{0, -1, math.NaN(), math.Inf(1), 1e-300, 1e300}
+	mults := []string{"s", "d", "t", "q", "m", "dd", "br s", "", "??", "dddddddd"}
+	for trial := 0; trial < 300; trial++ {
+		pl := &spectrum.PeakList{FieldMHz: []float64{0, 60, 400, 1200}[rng.IntN(4)]}
+		for k := rng.IntN(12); k > 0; k-- {
+			c := rng.Float64()*14 - 1
+			area := rng.Float64() * 10
+			if rng.IntN(5) == 0 {
+				area = odd[rng.IntN(len(odd))]
+			}
+			m := spectrum.Multiplet{PPM: c, FromPPM: c + rng.NormFloat64()*0.05, ToPPM: c + rng.NormFloat64()*0.05,
+				Integral: area, Multiplicity: mults[rng.IntN(len(mults))], Peaks: rng.IntN(5),
+				JHz: []float64{rng.Float64() * 20}, PeakIndex: []int{rng.IntN(7) - 2}}
+			pl.Multiplets = append(pl.Multiplets, m)
+			pl.Peaks = append(pl.Peaks, spectrum.Peak{PPM: c, Intensity: area, SNR: rng.Float64() * 100, WidthHz: rng.Float64() * 10})
+		}
+		in := Input{Smiles: "CCC(C)=O", Peaks: pl, Candidates: []string{"CC(C)C=O"}, Impurities: []string{"COc1cc(OC)cc(OC)c1"},
+			Standard: &Standard{Smiles: "COc1cc(OC)cc(OC)c1", MassMg: 1, SampleMassMg: 1, PurityPct: 99}}
+		res, err := Check(in, Options{Solvent: []string{"CDCl3", "DMSO", "", "xyz"}[rng.IntN(4)], Predictor: handPredictor(t)})
+		if err != nil {
+			t.Fatalf("trial %d: %v", trial, err)
+		}
+		if _, err := json.Marshal(res); err != nil {
+			t.Fatalf("trial %d: JSON: %v", trial, err)
 		}
 	}
 }
