@@ -177,6 +177,7 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 	if s, sp := fitScale(sig, eff, sigM, penalty); s > 0 {
 		scale, spread = s, sp
 	}
+	eff, pre = splitHiddenLines(&p2, sig, eff, pre, sigM, field, solv, solvOK)
 	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff}
 	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras)
 	ev.evaluate(eff, field)

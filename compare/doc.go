@@ -45,7 +45,10 @@
 //     (tables/impurities.toml: Gottlieb, Kotlyar & Nudelman 1997 and
 //     Fulmer et al. 2010, values from memory), whole sets first, a signal
 //     hidden under a compound multiplet counting towards the set, named
-//     only at ≥ 0.1 mol % with a peak of S/N ≥ 10; the rest is unknown. The
+//     only at ≥ 0.1 mol % with a peak of S/N ≥ 10 (a minor peak that
+//     processing grouped into a compound multiplet but that lies outside
+//     the signal's predicted lines, at a tabulated singlet, is split off
+//     first); the rest is unknown. The
 //     excess of a compound multiplet holding clearly more H than assigned is
 //     listed as an unexplained part.
 //

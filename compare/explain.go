@@ -545,3 +545,99 @@ func (ex *explanation) molar(compound string) (pct float64, comps []Component) {
 }
 
 func fmtH(h float64) string { return fmt.Sprintf("%.1f H", h) }
+
+// splitHiddenLines finds sharp table singlets (water, common solvents)
+// that processing grouped into a compound multiplet: a peak of the
+// multiplet lying outside the predicted extent of the one signal given to it
+// (more than 3 Hz beyond its outermost predicted line), below 30 % of the
+// multiplet's tallest peak, and within the
+// species' tolerance of a tabulated singlet. Such a peak becomes a multiplet
+// of its own (area by its share of height × width), appended to a copy of
+// ms, and is taken from the host's area. pre is extended to match.
+func splitHiddenLines(pred *predict.Prediction, sig []predict.Signal, ms []mplet, pre []string, sigM []int,
+	field float64, solv SolventInfo, solvOK bool) ([]mplet, []string) {
+	if !solvOK || field <= 0 {
+		return ms, pre
+	}
+	var singlets []float64
+	for _, sp := range SpeciesFor(solv.Name) {
+		for _, sg := range sp.Signals {
+			if sg.Mult == "s" && sp.Kind != "reference" {
+				singlets = append(singlets, sg.PPM[solv.Name])
+			}
+		}
+	}
+	host := make([]int, len(ms))
+	for j := range host {
+		host[j] = -1
+	}
+	for i, j := range sigM {
+		if j < 0 {
+			continue
+		}
+		if host[j] == -1 {
+			host[j] = i
+		} else {
+			host[j] = -2 // shared: extent unclear
+		}
+	}
+	out, pre2 := ms, pre
+	copied := false
+	for j, i := range host {
+		if i < 0 || len(ms[j].pk) < 2 {
+			continue
+		}
+		half := lineExtent(pred, sig[i]) + 3/field
+		var hw, top float64
+		for _, p := range ms[j].pk {
+			hw += p.Intensity * math.Max(p.WidthHz, 0.1)
+			top = math.Max(top, p.Intensity)
+		}
+		for _, p := range ms[j].pk {
+			// A hidden line is a minor one: the multiplet's own lines are
+			// the tall ones.
+			if math.Abs(p.PPM-ms[j].ppm) <= half || hw <= 0 || p.Intensity > 0.3*top {
+				continue
+			}
+			near := false
+			for _, x := range singlets {
+				if math.Abs(p.PPM-x) <= DefaultImpurityTol {
+					near = true
+				}
+			}
+			if !near {
+				continue
+			}
+			if !copied {
+				out = append([]mplet(nil), ms...)
+				pre2 = append([]string(nil), pre...)
+				copied = true
+			}
+			a := ms[j].area * p.Intensity * math.Max(p.WidthHz, 0.1) / hw
+			w := math.Max(p.WidthHz, 1) / field
+			out[j].area -= a
+			out = append(out, mplet{idx: ms[j].idx, ppm: p.PPM, from: p.PPM - 2*w, to: p.PPM + 2*w, area: a, mult: "s",
+				snr: p.SNR, pk: []spectrum.Peak{p}})
+			pre2 = append(pre2, "")
+		}
+	}
+	return out, pre2
+}
+
+// lineExtent is the largest distance (ppm) of a signal's predicted lines
+// from its shift, counting lines above 2 % of its tallest.
+func lineExtent(pred *predict.Prediction, s predict.Signal) float64 {
+	top := 0.0
+	for _, l := range pred.Lines {
+		if l.Signal == s.Label {
+			top = math.Max(top, l.Intensity)
+		}
+	}
+	ext := 0.0
+	for _, l := range pred.Lines {
+		if l.Signal == s.Label && l.Intensity >= 0.02*top {
+			ext = math.Max(ext, math.Abs(l.PPM-s.ShiftPPM))
+		}
+	}
+	return ext
+}

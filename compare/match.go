@@ -38,6 +38,7 @@ type mplet struct {
 	part     bool   // absorbed into multiplet host as a second part of its signal
 	host     int
 	snr      float64 // largest S/N of its peaks; 0 when unknown
+	pk       []spectrum.Peak
 }
 
 func prepMultiplets(pl *spectrum.PeakList) []mplet {
@@ -57,7 +58,18 @@ func prepMultiplets(pl *spectrum.PeakList) []mplet {
 		if from == 0 && to == 0 {
 			from, to = m.PPM, m.PPM
 		}
-		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: cleanMultiplicity(pl, m), j: m.JHz, label: m.Label, snr: peakSNR(pl, m)})
+		out = append(out, mplet{idx: i, ppm: m.PPM, from: from, to: to, area: a, mult: cleanMultiplicity(pl, m), j: m.JHz, label: m.Label, snr: peakSNR(pl, m), pk: multipletPeaks(pl, m)})
+	}
+	return out
+}
+
+// multipletPeaks returns the peaks of a multiplet (stray indices skipped).
+func multipletPeaks(pl *spectrum.PeakList, m spectrum.Multiplet) []spectrum.Peak {
+	var out []spectrum.Peak
+	for _, k := range m.PeakIndex {
+		if k >= 0 && k < len(pl.Peaks) {
+			out = append(out, pl.Peaks[k])
+		}
 	}
 	return out
 }
