@@ -252,12 +252,15 @@ func (ev *evaluation) missingReason(ms []mplet) string {
 		near := ""
 		bd := math.Inf(1)
 		for _, m := range ms {
+			if m.area*ev.scale < 0.25 {
+				continue // noise-level peaks are no counterpart worth naming
+			}
 			if d := math.Abs(m.ppm - s.ShiftPPM); d < bd {
 				bd, near = d, fmt.Sprintf("nearest measured multiplet %.2f %s", m.ppm, orM(m.mult))
 			}
 		}
 		if near == "" {
-			near = "no measured multiplet"
+			near = "no measured multiplet of comparable size"
 		}
 		parts = append(parts, fmt.Sprintf("signal %s predicted at %.2f %s (%d H) has no counterpart, %s",
 			s.Label, s.ShiftPPM, orM(s.Multiplicity), s.NH, near))
