@@ -85,7 +85,7 @@ func Check(in Input, opt Options) (*Result, error) {
 	extras, xwarn := predictExtras(in, pr, field, canon)
 	warn = append(warn, xwarn...)
 
-	main := evaluateStructure(in.Smiles, pred, ms, pre, field, solv, solvOK, extras)
+	main := evaluateStructure(in.Smiles, pred, ms, pre, field, solv, solvOK, extras, pl.Trace)
 	res := buildResult(main, ms, pl, trace, field, canon)
 	res.Warnings = append(append(append(res.Warnings, pl.Warnings...), warn...), pred.Warnings...)
 	res.Artifact = append(res.Artifact, peakArtifacts(pl)...)
@@ -98,7 +98,7 @@ func Check(in Input, opt Options) (*Result, error) {
 			res.Purity.QNMRMassPercent, res.Purity.UncertaintyPercent = &p, &u
 		}
 	}
-	rankCandidates(res, in, opt, pr, main, ms, pre, field, solv, solvOK, extras, canon)
+	rankCandidates(res, in, opt, pr, main, ms, pre, field, solv, solvOK, extras, canon, pl.Trace)
 	return res, nil
 }
 
@@ -157,7 +157,7 @@ func predictExtras(in Input, pr Predictor, field float64, solvent string) ([]ext
 // evaluateStructure runs assignment, explanation and scoring for one
 // prediction.
 func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []string, field float64,
-	solv SolventInfo, solvOK bool, extras []extraSpecies) *evaluation {
+	solv SolventInfo, solvOK bool, extras []extraSpecies, trace *spectrum.Spectrum) *evaluation {
 	avail := make([]bool, len(ms))
 	penalty := make([]float64, len(ms))
 	for j := range ms {
@@ -178,7 +178,7 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 		scale, spread = s, sp
 	}
 	eff, pre = splitHiddenLines(&p2, sig, eff, pre, sigM, field, solv, solvOK)
-	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff}
+	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff, trace: trace}
 	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras)
 	ev.evaluate(eff, field)
 	return ev
@@ -225,7 +225,7 @@ func buildResult(ev *evaluation, ms []mplet, pl *spectrum.PeakList, trace *spect
 
 func roundParts(p PartScores) PartScores {
 	return PartScores{Shifts: round3(p.Shifts), Splitting: round3(p.Splitting), Integrals: round3(p.Integrals),
-		Explained: round3(p.Explained), Missing: round3(p.Missing)}
+		Explained: round3(p.Explained), Missing: round3(p.Missing), Shape: round3(p.Shape)}
 }
 
 // molarPurity turns the identified species into a molar composition and
@@ -265,7 +265,7 @@ func molarPurity(ev *evaluation) Purity {
 }
 
 func rankCandidates(res *Result, in Input, opt Options, pr Predictor, main *evaluation, ms []mplet, pre []string,
-	field float64, solv SolventInfo, solvOK bool, extras []extraSpecies, solvent string) {
+	field float64, solv SolventInfo, solvOK bool, extras []extraSpecies, solvent string, trace *spectrum.Spectrum) {
 	if len(in.Candidates) == 0 {
 		return
 	}
@@ -288,7 +288,7 @@ func rankCandidates(res *Result, in Input, opt Options, pr Predictor, main *eval
 			list = append(list, entry{Candidate{Smiles: smi, Verdict: Review, Error: err.Error()}, nil})
 			continue
 		}
-		ev := evaluateStructure(smi, p, ms, pre, field, solv, solvOK, extras)
+		ev := evaluateStructure(smi, p, ms, pre, field, solv, solvOK, extras, trace)
 		list = append(list, entry{Candidate{Smiles: smi, Score: round3(ev.score), Verdict: ev.verdict}, ev})
 	}
 	sort.SliceStable(list, func(a, b int) bool {

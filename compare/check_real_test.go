@@ -41,16 +41,16 @@ var wrongIsomers = map[string]string{
 	"noCAS_phosphineoxide": "CC(C)=CCCC(C)CP(C)(=O)CC",
 }
 
-// Measured levels on the real spectra (2026-12-02 00:35 UTC: consistent
-// 17/21, assignments agreeing 105/137, wrong isomer rejected or ranked
-// lower 18/21; earlier runs drifted by about two assignments and one
+// Measured levels on the real spectra (2026-12-02 00:50 UTC: consistent
+// 17/21, assignments agreeing 104/137, wrong isomer rejected or ranked
+// lower 20/21; earlier runs drifted by about two assignments and one
 // compound while the predictor and the processing changed under them), less
 // about one case of slack; the test fails below them. See the log line of
 // TestRealSpectra for the figures.
 const (
 	minRealConsistent = 16.0 / 21
 	minRealAssigned   = 0.74
-	minRealWrong      = 17.0 / 21
+	minRealWrong      = 19.0 / 21
 )
 
 type realCompound struct {

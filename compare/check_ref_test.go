@@ -12,12 +12,12 @@ import (
 // Measured levels of the synthetic reference set (see refset_test.go for
 // the sources of the data), less one compound of slack each so that a
 // single-case drift of the shared predictor or processing does not fail the
-// build. Measured 2026-12-02 00:45 UTC (fields 300/400/600 MHz): true
-// consistent 46/46, wrong rejected or ranked lower 44/46, contaminants
+// build. Measured 2026-12-02 00:50 UTC (fields 300/400/600 MHz): true
+// consistent 46/46, wrong rejected or ranked lower 45/46, contaminants
 // (≥ 1 mol %) identified 16/16, given impurities 4/4.
 const (
 	minTrueConsistent = 45.0 / 46
-	minWrongRejected  = 43.0 / 46
+	minWrongRejected  = 44.0 / 46
 	minContaminant    = 15.0 / 16
 )
 

@@ -55,7 +55,10 @@
 // # Scores and verdict
 //
 // Part scores, each 0–1: shifts (H-weighted mean of exp(−z²/8)), splitting
-// (mean of 1 − cost/3), integrals (1 − Σ|H measured − H expected|/Σ H
+// (half the mean of 1 − cost/3 over the multiplicity labels, half the shape
+// score: the Pearson correlation, floored at 0 and H-weighted, of each
+// compound multiplet's trace with the Lorentzian rendering of the lines
+// predicted for its signals, moved to its centre), integrals (1 − Σ|H measured − H expected|/Σ H
 // expected over compound multiplets, excess counted at half) and explained
 // (1 − unknown intensity/total intensity; residual solvent, TMS and
 // artifacts are left out of the total). The score is

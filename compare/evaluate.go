@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"shiftwise/predict"
+	"shiftwise/spectrum"
 )
 
 // Verdict thresholds (documented in doc.go). Tuned on the synthetic
@@ -28,6 +29,7 @@ const (
 	reviewIntegral    = 0.80 // below: review
 	maxUnknownPct     = 10.0 // unknown intensity above this (%): review
 	maxShapeFrac      = 0.20 // H with a clearly different multiplicity above this: review
+	shapeWeight       = 0.5  // share of the trace-shape correlation in the splitting score
 )
 
 // evaluation is one structure scored against the spectrum.
@@ -49,6 +51,7 @@ type evaluation struct {
 	z       []float64
 	mc      []float64
 	ms      []mplet // the multiplets as this structure sees them (parts absorbed)
+	trace   *spectrum.Spectrum
 	nh      map[string]int
 }
 
@@ -132,6 +135,12 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 	p.Shifts, p.Splitting = 1, 1
 	if wS > 0 {
 		p.Shifts, p.Splitting = sS/wS, sP/wS
+	}
+	if sh, ok := ev.shapeScore(ms, ev.trace, field); ok {
+		// The labels say what processing read; the shape says what the
+		// trace shows. Both count.
+		p.Splitting = (1-shapeWeight)*p.Splitting + shapeWeight*sh
+		p.Shape = sh
 	}
 	p.Integrals = ev.integralScore(ms, hostExp)
 	if ev.ex.total > 0 {

@@ -210,6 +210,7 @@ type PartScores struct {
 	Splitting float64 `json:"splitting"`
 	Integrals float64 `json:"integrals"`
 	Explained float64 `json:"explained"` // fraction of measured intensity explained
+	Shape     float64 `json:"shape"`     // correlation of predicted and measured multiplet shapes (0 when no trace)
 	Missing   float64 `json:"missing_h_fraction"`
 }
 
