@@ -26,6 +26,9 @@ const (
 	// pickMinWidthFrac and pickStrongSNR: see dropNarrow.
 	pickMinWidthFrac = 0.5
 	pickStrongSNR    = 4.0
+	// pickKeepFrac: a maximum at least this fraction of the tallest line is
+	// kept however narrow (no noise point reaches it); see dropNarrow.
+	pickKeepFrac = 0.05
 )
 
 // line is a picked peak during processing, in point and Hz coordinates.
@@ -69,9 +72,10 @@ func pickLines(ppm, y []float64, sigma, minSNR, hzPerPoint float64) []line {
 	return dropNarrow(out)
 }
 
-// dropNarrow removes maxima much narrower than the lines of the spectrum:
-// narrower than pickMinWidthFrac times the median width of the strong
-// peaks (S/N at least pickStrongSNR times the weakest picked). In white
+// dropNarrow removes weak maxima much narrower than the lines of the
+// spectrum: narrower than pickMinWidthFrac times the median width of the
+// strong peaks (S/N at least pickStrongSNR times the weakest picked), and
+// lower than pickKeepFrac of the tallest line. In white
 // noise a single high point on the tail of a line is a local maximum with
 // several σ of prominence; it is a fraction of a line width wide.
 func dropNarrow(ls []line) []line {
@@ -92,9 +96,15 @@ func dropNarrow(ls []line) []line {
 		return ls
 	}
 	floor := pickMinWidthFrac * median(w)
+	maxSNR := 0.0
+	for _, l := range ls {
+		maxSNR = math.Max(maxSNR, l.snr)
+	}
 	out := ls[:0]
 	for _, l := range ls {
-		if l.widthHz >= floor {
+		// Only weak maxima can be noise points; a strong sharp line (a
+		// singlet beside broader unresolved multiplets) is always kept.
+		if l.widthHz >= floor || l.snr >= pickKeepFrac*maxSNR {
 			out = append(out, l)
 		}
 	}

@@ -28,7 +28,7 @@ const (
 	// report printed by the test); they guard against regressions.
 	realMinCentreRate   = 0.88
 	realMinRegionRate   = 0.95
-	realMinJRate        = 0.46
+	realMinJRate        = 0.45 // 0.455 after strong sharp singlets were kept (dropNarrow), from 0.47
 	realMinIntegralRate = 0.55
 )
 
