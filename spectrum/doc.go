@@ -62,4 +62,81 @@
 // integers scaled so that the largest magnitude is 10^9), or a PEAK TABLE
 // for a peak list. [WriteCSV] writes the forms ReadCSV reads. Both round-trip
 // through the readers.
+//
+// # Processing
+//
+// [Process] turns a trace into a [PeakList]; the input is not modified.
+// The observe frequency comes from ProcessOptions.FieldMHz, else the file,
+// else 400 MHz is assumed with a warning; the solvent from the options, else
+// the file, else CDCl3 with a warning. The steps, in order:
+//
+//   - Baseline (baseline.go): a Whittaker smoother (Eilers 2003), the z
+//     minimising Σ wᵢ(yᵢ − zᵢ)² + λ Σ (Δ²zᵢ)², solved with a banded LDLᵀ
+//     factorisation in O(n) on block means of at most 4,096 points. As in
+//     asymmetric least squares (Eilers & Boelens 2005) the weights are
+//     re-estimated from the residuals, but with a hard noise-scaled rule:
+//     a point rising more than 2.5σ above the baseline gets weight 0, with
+//     two blocks on each side, points below keep weight 1, so the baseline
+//     runs through the middle of the noise. λ is set so that the baseline
+//     cannot follow features shorter than about 1 ppm.
+//   - Noise (noise.go): σ = 1.4826 · MAD (median absolute deviation) of the
+//     corrected trace over the points the baseline step found signal-free.
+//     [EstimateNoise] gives the MAD of the first differences over √2, for a
+//     trace that is not baseline-corrected.
+//   - Peak picking (peaks.go): local maxima at least MinSNR·σ high (default
+//     [DefaultMinSNR], 5), with a topographic prominence of at least 3σ and
+//     at least half the median width of the strong lines unless they reach
+//     5 % of the tallest line; position, height and width from the parabola
+//     through the reciprocal of the three top points (exact for a
+//     Lorentzian).
+//   - Artifact flags (peaks_artifacts.go): 13C satellites (a pair of lines of
+//     0.1–2 % of a parent at ±½·¹J(CH), 55–130 Hz on each side, or one whose
+//     mirror is hidden under a taller signal), spinning sidebands (a
+//     symmetric pair below 2 % of the parent, 5–60 Hz away) and line-shape
+//     skirts (lines below 0.5 % of a line within 50 Hz) get
+//     Peak.Artifact = [Artifact13C], [ArtifactSideband] or [ArtifactSkirt] and
+//     join no multiplet.
+//   - Multiplets (multiplet.go): neighbouring peaks join one multiplet when
+//     they are at most JMaxHz apart (default [DefaultJMaxHz], 20 Hz) or the
+//     trace between them stays above a quarter of the smaller one (and 3σ),
+//     in both cases only when the new peak and the tallest peak of the
+//     multiplet so far differ by less than a factor of 30. Each multiplet
+//     gets a first-order analysis after Hoye, Hanson & Vyvyan 1994:
+//     symmetric positions and intensities (within roofing), intensities in
+//     whole units of an outer line summing to a power of two, couplings
+//     peeled one at a time; retried without the weakest lines and on
+//     Lorentzian-unmixed amplitudes. Equal couplings merge into t, q, p, …;
+//     Multiplet.Multiplicity reads like "dt" (largest coupling first, J in
+//     Multiplet.JHz, largest first), or "m" when the pattern is not
+//     first-order.
+//   - Integrals (integrate.go): the trapezoid rule over each multiplet's
+//     region on the corrected trace (its lines widened by five line widths,
+//     at least 3 Hz, never past the midpoint to the next multiplet), with
+//     the Lorentzian tails of its own lines outside the region added and
+//     those of other lines inside it removed (correction capped at 15 %).
+//   - Referencing (reference.go): the axis is moved so that TMS lands on 0
+//     or the solvent residual on its tabulated shift (Fulmer et al. 2010),
+//     only when the signal is found within 0.15 ppm. ProcessOptions.Reference
+//     [RefAuto] prefers a TMS line within 0.05 ppm of 0 with S/N ≥ 20, else
+//     a residual with the expected pattern (or within 0.02 ppm), which
+//     confirms the file's axis
+//     when within 0.04 ppm and moves it when further off; [RefTMS] and
+//     [RefSolvent] move the axis onto that signal whenever it is found;
+//     [RefNone] keeps the axis. The TMS and solvent
+//     multiplets are labelled ([LabelTMS], [LabelSolvent]) in every mode;
+//     PeakList.ReferencePPM is the shift applied.
+//
+// Relative integrals: with no ProcessOptions.IntegralRef, the unlabelled
+// first-order multiplets of at least 1/16 of the largest area (all
+// unlabelled ones of that size when none is first-order) are scaled so
+// that the smallest is n protons, n being the smallest of 1…4 for which
+// all of them come out within a mean 0.12 of whole numbers (n = 1 when none
+// does). An [IntegralRef] instead fixes the multiplet at a ppm (or with an
+// index) to a given number of protons.
+//
+// A spectrum with only a peak table skips baseline, noise and picking: its
+// peaks are flagged, grouped and analysed the same way, and a multiplet's
+// integral is the sum of its intensities (times the widths when every line
+// has one). Problems that do not stop processing (field or solvent assumed,
+// reference signal not found) are listed in PeakList.Warnings.
 package spectrum
