@@ -29,7 +29,7 @@
 //     41 (1994); value from memory), averaged over the chair flip;
 //   - vinyl cis and trans ³J: ethylene (11.6 and 19.1 Hz) plus one
 //     increment per substituent on the two carbons (tables.go), clamped to
-//     the common ranges cis 6–12 Hz, trans 12–18 Hz; cis across a ring
+//     4–12.5 Hz (cis) and 11–19.1 Hz (trans), range ±1.5 Hz; cis across a ring
 //     double bond by ring size; when the SMILES does not write the geometry
 //     (the graph assumes E), the range spans both the cis and the trans
 //     value;
@@ -49,7 +49,7 @@
 // ring alone: open chains are treated as freely rotating (rotamer average),
 // six-membered saturated rings as rapidly flipping chairs with unknown
 // relative configuration, J = (J(180°) + 3·J(60°))/4 from the Karplus
-// function, with the range spanning J(60°) to J(180°); three- to
+// function, with the range spanning J(60°) − 0.5 to J(180°) + 2 Hz; three- to
 // five-membered rings use the mean of their tabulated cis and trans values
 // with a range covering both, because ring stereo marks are not read. The
 // range, not the typical value, is the honest answer in rings.
@@ -65,7 +65,10 @@
 //
 // # How to add a coupling rule
 //
-// Add a row to the table in tables.go (typical value, range, name, source in
-// a comment), then select it in hh.go or hetero.go from the topology, and
-// add a test naming the source of the value.
+// Add a row rule{name, typical, min, max} (Hz, sign kept) to tables.go with
+// its source in the comment above it, select it in hh.go (H–H) or hetero.go
+// (H–F, H–P) from the topology by returning row.j(nBonds), and add a case
+// naming the source of the value to TestHandbookValues, TestCommonRanges or
+// TestRulesByTopology. Then run go test ./jrules ./predict (DEVELOPERS.md,
+// "How to add a coupling rule", has the details).
 package jrules

@@ -49,9 +49,10 @@
 // # TOML schema
 //
 // Each file may hold [params] (alpha_damping, model_sd, hetero6_scale,
-// hetero5_scale) and arrays of tables; every row needs key and source, and
-// has sd (1-sigma uncertainty of the rule) plus the value fields of its
-// section:
+// hetero5_scale) and arrays of tables; every row needs a key and every new
+// row a source (an override of an existing key keeps the old source unless
+// it gives one), and has sd (1-sigma uncertainty of the rule) plus the value
+// fields of its section:
 //
 //	[[base]]          key, ppm            CH3, CH2, CH, CH4, vinyl, allene, benzene
 //	[[alpha]]         key, ch3, ch2, ch   α increments (sp3)
