@@ -25,7 +25,9 @@
 //
 // Exact diagonalises the Hamiltonian of each coupled cluster. The product
 // basis is block-diagonal in total Mz; each block is built directly and
-// diagonalised with gonum's mat.EigenSym, so the full 2^n matrix is never
+// diagonalised (Householder tridiagonalisation with gonum's LAPACK, then
+// implicit QL with the plane rotations applied row by row, which is
+// cache-friendly for row-major storage), so the full 2^n matrix is never
 // formed. A group of n magnetically equivalent spin-1/2 nuclei is replaced by
 // composite particles of total spin F (n=3: F=3/2 once and F=1/2 twice) and
 // the sub-spectra are weighted by the multiplicities, which keeps clusters

@@ -112,13 +112,14 @@ type eigen struct {
 var errEigen = errors.New("spin: eigen-decomposition did not converge")
 
 func (b *basis) diagonalise(blk int, jm [][]float64) (eigen, error) {
-	var es mat.EigenSym
-	if ok := es.Factorize(b.hamiltonian(blk, jm), true); !ok {
+	h := b.hamiltonian(blk, jm)
+	n := h.SymmetricDim()
+	a := h.RawSymmetric().Data
+	vals, ok := symEigen(a, n)
+	if !ok {
 		return eigen{}, errEigen
 	}
-	var v mat.Dense
-	es.VectorsTo(&v)
-	return eigen{vals: es.Values(nil), vecs: &v}, nil
+	return eigen{vals: vals, vecs: mat.NewDense(n, n, a)}, nil
 }
 
 // sink receives the lines of a sub-spectrum: intensities are multiplied by
