@@ -158,7 +158,8 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 // couplings in Auto mode, by any coupling in Exact mode). In Exact mode a
 // cluster above exactMaxNuclei is an error wrapping spin.ErrTooLarge; in
 // Auto mode a cluster above autoMaxNuclei is parked at distant shifts and
-// its environments are returned.
+// its environments are returned. A cluster of a single proton group is
+// exempt from both bounds.
 func (s *system) checkClusters(ss *spinSystem, opt Options) (map[int]bool, error) {
 	n := len(ss.sys.Groups)
 	parent := make([]int, n)
@@ -182,10 +183,11 @@ func (s *system) checkClusters(ss *spinSystem, opt Options) (map[int]bool, error
 			parent[find(c.A)] = find(c.B)
 		}
 	}
-	size := map[int]int{}
+	size, groups := map[int]int{}, map[int]int{}
 	for g, gr := range ss.sys.Groups {
 		if gr.IsProton() {
 			size[find(g)] += gr.Count
+			groups[find(g)]++
 		}
 	}
 	parked := map[int]bool{}
@@ -193,6 +195,10 @@ func (s *system) checkClusters(ss *spinSystem, opt Options) (map[int]bool, error
 		r := find(g)
 		switch {
 		case !gr.IsProton():
+		case groups[r] == 1:
+			// A lone group of equivalent protons (the 12 H of TMS, a
+			// tert-butyl) is one composite spin: its size costs the
+			// simulation nothing, so it is never parked or refused.
 		case opt.Mode == spin.Exact && size[r] > exactMaxNuclei:
 			return nil, fmt.Errorf("signal %s is in a coupled cluster of %d protons, more than the %d that exact simulation allows: %w; use --mode auto or first-order",
 				gr.Name, size[r], exactMaxNuclei, spin.ErrTooLarge)

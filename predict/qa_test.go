@@ -1,0 +1,43 @@
+package predict
+
+import (
+	"testing"
+
+	"shiftwise/predict/spin"
+)
+
+// TestLoneEquivalentGroup: a set of equivalent protons that couples to no
+// other proton (TMS, hexamethylethane, the tert-butyl of tert-butylbenzene)
+// is a singlet; its size must neither trigger the "cluster too large"
+// warning in Auto mode nor make Exact mode refuse the molecule.
+func TestLoneEquivalentGroup(t *testing.T) {
+	cases := []struct {
+		smi  string
+		nH   int // protons of the lone group
+		mode spin.Mode
+	}{
+		// TMS: one 12 H singlet, the 0 ppm reference (common practice, no source).
+		{"C[Si](C)(C)C", 12, spin.Auto},
+		{"C[Si](C)(C)C", 12, spin.Exact},
+		// Hexamethylethane: 18 equivalent H, a singlet (common practice, no source).
+		{"CC(C)(C)C(C)(C)C", 18, spin.Auto},
+		{"CC(C)(C)C(C)(C)C", 18, spin.Exact},
+		// tert-Butylbenzene: the 9 H tert-butyl singlet (common practice, no source).
+		{"CC(C)(C)c1ccccc1", 9, spin.Auto},
+	}
+	for _, tc := range cases {
+		p := mustPredict(t, tc.smi, Options{Mode: tc.mode})
+		if len(p.Warnings) != 0 {
+			t.Errorf("%s (%v): warnings %q, want none", tc.smi, tc.mode, p.Warnings)
+		}
+		var lone *Signal
+		for i := range p.Signals {
+			if p.Signals[i].NH == tc.nH {
+				lone = &p.Signals[i]
+			}
+		}
+		if lone == nil || lone.Multiplicity != "s" {
+			t.Errorf("%s (%v): signals %+v, want a %d H singlet", tc.smi, tc.mode, p.Signals, tc.nH)
+		}
+	}
+}
