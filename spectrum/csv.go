@@ -41,6 +41,7 @@ type csvTable struct {
 }
 
 func readCSVBytes(data []byte, name string, opt ReadOptions) (*Spectrum, error) {
+	data = normalizeEOL(data)
 	t := &csvTable{file: name, order: [3]int{0, 1, 2}}
 	if err := t.parse(data); err != nil {
 		return nil, err
@@ -94,7 +95,7 @@ func (t *csvTable) addLine(num int, text string) error {
 		t.sep = pickSep(text)
 	}
 	fields := t.split(text)
-	if t.cols == 0 && t.header == nil && !t.allNumeric(fields) {
+	if t.cols == 0 && t.header == nil && !t.allNumeric(fields) && !t.anyNonFinite(fields) {
 		t.header = fields
 		t.mapHeader()
 		return nil
@@ -114,6 +115,9 @@ func (t *csvTable) addLine(num int, text string) error {
 	r := csvRow{line: num}
 	for i, f := range fields {
 		v, err := t.number(f)
+		if err == strconv.ErrRange {
+			return errorf(t.file, num, "column %d: %q is not a finite number", i+1, clip(f))
+		}
 		if err != nil {
 			return errorf(t.file, num, "column %d: expected a number, found %q", i+1, clip(f))
 		}
@@ -175,6 +179,17 @@ func (t *csvTable) allNumeric(fields []string) bool {
 		}
 	}
 	return true
+}
+
+// anyNonFinite reports whether a field reads as NaN or ±Inf: such a line is
+// data with a bad value, not a header.
+func (t *csvTable) anyNonFinite(fields []string) bool {
+	for _, f := range fields {
+		if _, err := t.number(f); err == strconv.ErrRange {
+			return true
+		}
+	}
+	return false
 }
 
 // decimals counts the digits after the decimal point (or comma).

@@ -1,6 +1,7 @@
 package spectrum
 
 import (
+	"errors"
 	"io"
 	"math"
 	"strconv"
@@ -32,11 +33,18 @@ func ReadJCAMPAllWith(r io.Reader, name string, opt ReadOptions) ([]*Spectrum, e
 }
 
 func readJCAMPAllBytes(data []byte, file string, opt ReadOptions) ([]*Spectrum, error) {
-	recs, last, err := scanRecords(data, file)
+	recs, last, err := scanRecords(normalizeEOL(data), file)
 	if err != nil {
 		return nil, err
 	}
 	blocks, err := splitBlocks(recs, last, file)
+	var noEnd errMissingEnd
+	if errors.As(err, &noEnd) {
+		if !completeWithoutEnd(blocks) {
+			return nil, noEnd.ParseError
+		}
+		err = nil // the open block's data must prove complete below
+	}
 	if err != nil {
 		return nil, err
 	}
@@ -44,11 +52,18 @@ func readJCAMPAllBytes(data []byte, file string, opt ReadOptions) ([]*Spectrum, 
 	for _, b := range blocks {
 		s, err := readBlock(b, file, opt)
 		if err != nil {
+			if !b.ended {
+				return nil, noEnd.ParseError // truncated: say so
+			}
 			return nil, err
 		}
-		if s != nil {
-			out = append(out, s)
+		if s == nil {
+			continue
 		}
+		if !b.ended {
+			s.Warnings = append(s.Warnings, errorf(file, noEnd.Line, "no ##END= at the end of the file; the data are complete (##NPOINTS= matched)").Error())
+		}
+		out = append(out, s)
 	}
 	if len(out) == 0 {
 		return nil, errorf(file, blocks[0].line, "no spectrum in the file (expected ##XYDATA=, ##XYPOINTS=, ##PEAK TABLE= or ##NTUPLES=)")

@@ -194,7 +194,32 @@ func splitBlocks(recs []*ldr, lastLine int, file string) ([]*block, error) {
 		return nil, errorf(file, 1, "no ##TITLE= record: not a JCAMP-DX file")
 	}
 	if len(stack) > 0 {
-		return nil, errorf(file, lastLine, "missing ##END= for the block opened at line %d (file truncated?)", stack[len(stack)-1].line)
+		// Left open at the end of the file: readJCAMPAllBytes accepts the
+		// block only when its data prove complete (see missingEnd).
+		return all, missingEnd(file, lastLine, stack[len(stack)-1].line)
 	}
 	return all, nil
+}
+
+// errMissingEnd marks the error of a file whose last block has no ##END=.
+type errMissingEnd struct{ *ParseError }
+
+func missingEnd(file string, lastLine, open int) error {
+	return errMissingEnd{errorf(file, lastLine, "missing ##END= for the block opened at line %d (file truncated?)", open)}
+}
+
+// completeWithoutEnd reports whether an unterminated block still proves its
+// data complete: a single XYDATA trace whose ##NPOINTS= the reader checks
+// (a truncated trace then fails that check instead).
+func completeWithoutEnd(blocks []*block) bool {
+	open := 0
+	for _, b := range blocks {
+		if !b.ended {
+			open++
+			if b.find("XYDATA") == nil || b.find("NPOINTS") == nil {
+				return false
+			}
+		}
+	}
+	return open == 1
 }

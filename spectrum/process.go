@@ -24,6 +24,8 @@ const (
 	// frequency and the options do not either.
 	assumedFieldMHz = 400.0
 	minTracePoints  = 16
+	// maxIntensity bounds |y| so that squares and sums of squares stay finite.
+	maxIntensity = 1e150
 )
 
 // ProcessOptions controls Process. The zero value is ready to use.
@@ -164,6 +166,10 @@ func processTrace(s *Spectrum, c *config) (*processed, error) {
 		if i > 0 && !(s.PPM[i] > s.PPM[i-1]) {
 			return nil, fmt.Errorf("%s: ppm axis not strictly ascending at point %d", sourceName(s), i+1)
 		}
+	}
+	if m := maxAbs(s.Y); m > maxIntensity {
+		// The baseline's squared residuals would overflow.
+		return nil, fmt.Errorf("%s: intensities up to %g are too large to process; scale the trace down", sourceName(s), m)
 	}
 	ppm := append([]float64(nil), s.PPM...)
 	perPPM := float64(n-1) / (ppm[n-1] - ppm[0])

@@ -77,6 +77,7 @@ func ReadFileWith(path string, opt ReadOptions) (*Spectrum, error) {
 }
 
 func readBytes(data []byte, name string, opt ReadOptions) (*Spectrum, error) {
+	data = normalizeEOL(data)
 	if IsJCAMP(data) {
 		return readJCAMPBytes(data, name, opt)
 	}
@@ -101,6 +102,16 @@ func IsJCAMP(data []byte) bool {
 		return bytes.HasPrefix(line, []byte("##"))
 	}
 	return false
+}
+
+// normalizeEOL turns the lone carriage returns of a file with classic Mac
+// line ends (CR only, no LF anywhere) into line feeds; other files are
+// returned unchanged (CRLF is handled line by line).
+func normalizeEOL(data []byte) []byte {
+	if bytes.IndexByte(data, '\n') >= 0 || bytes.IndexByte(data, '\r') < 0 {
+		return data
+	}
+	return bytes.ReplaceAll(data, []byte{'\r'}, []byte{'\n'})
 }
 
 // readAll reads r up to maxFileBytes.
