@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"runtime"
+	"slices"
 	"sync"
 	"sync/atomic"
 
@@ -135,26 +136,47 @@ type sink struct {
 // to Tr(F+F−) over the product basis, times dst.scale). Blocks are
 // diagonalised, and the lines between neighbouring blocks computed, on up to
 // GOMAXPROCS goroutines; the result does not depend on their number.
+//
+// The blocks are processed in waves of GOMAXPROCS blocks: a wave is
+// diagonalised, then the lines between it and the previous wave are
+// computed, and only the last block of the wave is kept for the next one,
+// so at most GOMAXPROCS+1 blocks' eigenvectors are held at once.
 func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 	if len(spins) == 0 {
 		return nil
 	}
 	b := newBasis(spins)
 	nb := len(b.blocks)
+	width := max(1, min(runtime.GOMAXPROCS(0), nb))
 	eig := make([]eigen, nb)
 	errs := make([]error, nb)
-	parallel(nb, func(blk int) { eig[blk], errs[blk] = b.diagonalise(blk, jm) })
-	if err := errors.Join(errs...); err != nil {
-		return err
-	}
 	parts := make([]sink, nb-1)
-	parallel(nb-1, func(blk int) {
-		parts[blk] = sink{scale: dst.scale, eg: dst.eg}
-		b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
-	})
+	for lo := 0; lo < nb; lo += width {
+		hi := min(lo+width, nb)
+		parallel(hi-lo, func(k int) { eig[lo+k], errs[lo+k] = b.diagonalise(lo+k, jm) })
+		if err := errors.Join(errs[lo:hi]...); err != nil {
+			return err
+		}
+		// Pairs (blk, blk+1) with blk+1 in this wave.
+		first := max(lo-1, 0)
+		parallel(hi-1-first, func(k int) {
+			blk := first + k
+			parts[blk] = sink{scale: dst.scale, eg: dst.eg}
+			b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
+		})
+		for blk := first; blk < hi-1; blk++ {
+			eig[blk] = eigen{}
+		}
+	}
+	total := len(dst.out)
 	for _, p := range parts {
-		dst.out = append(dst.out, p.out...)
-		dst.dropped += p.dropped
+		total += len(p.out)
+	}
+	dst.out = slices.Grow(dst.out, total-len(dst.out))
+	for i := range parts {
+		dst.out = append(dst.out, parts[i].out...)
+		dst.dropped += parts[i].dropped
+		parts[i].out = nil
 	}
 	return nil
 }
@@ -211,7 +233,13 @@ func (b *basis) lines(blk int, e0, e1 eigen, dst *sink) {
 	b.lowerInto(w, blk, e0, -1)
 	a := mat.NewDense(d1, d0, nil)
 	a.Mul(e1.vecs.T(), w)
-	sig := make([]transition, 0, 4*(d0+d1))
+	nsig := 0
+	for _, v := range a.RawMatrix().Data {
+		if in := v * v; in*dst.scale >= MinLine && in >= forbidden {
+			nsig++
+		}
+	}
+	sig := make([]transition, 0, nsig)
 	for j := 0; j < d1; j++ {
 		for i, v := range a.RawRowView(j) {
 			switch in := v * v; {
@@ -225,22 +253,41 @@ func (b *basis) lines(blk int, e0, e1 eigen, dst *sink) {
 	grps := b.groups()
 	shares := b.shares(blk, e0, e1, grps, sig, w, a)
 	g := len(grps)
+	// Fold shares below minShare of the line into its largest share, and
+	// count the lines to allocate them at once.
+	nout := 0
 	for t, tr := range sig {
-		hz := e0.vals[tr.i] - e1.vals[tr.j]
 		sh := shares[t*g : (t+1)*g]
 		big, rest := 0, 0.0
+		cut := minShare * tr.a * tr.a
 		for k, c := range sh {
 			if math.Abs(c) > math.Abs(sh[big]) {
 				big = k
 			}
-			if math.Abs(c) < minShare*tr.a*tr.a {
-				rest += c
-			}
 		}
 		for k, c := range sh {
-			if k == big {
-				c += rest
-			} else if math.Abs(c) < minShare*tr.a*tr.a {
+			if k != big && math.Abs(c) < cut {
+				rest += c
+				sh[k] = 0
+			}
+		}
+		if math.Abs(sh[big]) < cut {
+			rest += sh[big]
+			sh[big] = 0
+		}
+		sh[big] += rest
+		for _, c := range sh {
+			if c != 0 {
+				nout++
+			}
+		}
+	}
+	dst.out = slices.Grow(dst.out, nout)
+	for t, tr := range sig {
+		hz := e0.vals[tr.i] - e1.vals[tr.j]
+		sh := shares[t*g : (t+1)*g]
+		for k, c := range sh {
+			if c == 0 {
 				continue
 			}
 			dst.out = append(dst.out, rawLine{hz: hz, inten: c * dst.scale, eg: dst.eg[grps[k]]})
