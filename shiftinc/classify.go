@@ -11,13 +11,25 @@ type view struct {
 	nb    [][]int // neighbours of each atom, filled on first use
 }
 
-// nbrs returns the neighbours of a (cached; must not be modified).
+// nbrs returns the non-hydrogen neighbours of a (cached; must not be
+// modified). Hydrogen atoms kept in the graph (isotopes written as [2H] or
+// [3H]) are left out: for the increments they are hydrogens, counted by h.
 func (v *view) nbrs(a int) []int {
 	if v.nb[a] == nil {
-		v.nb[a] = v.m.Neighbors(a)
+		nb := []int{}
+		for _, x := range v.m.Neighbors(a) {
+			if !v.isH(x) {
+				nb = append(nb, x)
+			}
+		}
+		v.nb[a] = nb
 	}
 	return v.nb[a]
 }
+
+// isH reports whether atom a is a hydrogen kept as an atom (deuterium,
+// tritium).
+func (v *view) isH(a int) bool { return a >= 0 && v.m.Atoms[a].Element == "H" }
 
 func newView(m *graph.Mol) *view {
 	v := &view{m: m, rings: m.Rings(), nb: make([][]int, len(m.Atoms))}
@@ -37,7 +49,18 @@ func newView(m *graph.Mol) *view {
 }
 
 func (v *view) el(a int) string { return v.m.Atoms[a].Element }
-func (v *view) h(a int) int     { return v.m.Atoms[a].HCount() }
+
+// h counts the hydrogens on a: implicit and bracket H plus hydrogen atoms
+// (deuterium, tritium) bonded to it, which shift a proton like H does.
+func (v *view) h(a int) int {
+	n := v.m.Atoms[a].HCount()
+	for _, bi := range v.m.BondsOf(a) {
+		if v.isH(v.m.Bonds[bi].Other(a)) {
+			n++
+		}
+	}
+	return n
+}
 func (v *view) arom1(a int) bool {
 	return v.m.Atoms[a].Aromatic
 }

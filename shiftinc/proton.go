@@ -273,8 +273,8 @@ func (t *Table) vinyl(v *view, p graph.Proton, a *acc) bool {
 		atom int
 		from int
 	}{{"gem", av.Gem, c}, {"cis", av.Cis, partner}, {"trans", av.Trans, partner}} {
-		if s.atom < 0 {
-			continue
+		if s.atom < 0 || v.isH(s.atom) {
+			continue // H or D: no increment
 		}
 		keys := t.alkeneKeys(v, c, partner, s.from, s.atom)
 		r := t.lookup("alkene", keys)
