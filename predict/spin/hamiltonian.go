@@ -168,11 +168,14 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 			eig[blk] = eigen{}
 		}
 	}
-	total := len(dst.out)
+	total := 0
 	for _, p := range parts {
 		total += len(p.out)
 	}
-	dst.out = slices.Grow(dst.out, total-len(dst.out))
+	if cap(dst.out)-len(dst.out) < total {
+		// At least double, so that many small calls stay linear.
+		dst.out = slices.Grow(dst.out, max(total, len(dst.out)))
+	}
 	for i := range parts {
 		dst.out = append(dst.out, parts[i].out...)
 		dst.dropped += parts[i].dropped

@@ -380,12 +380,7 @@ func binomialWeights(n int) []float64 {
 
 // mergeRaw sorts lines by group and frequency and merges coincident ones.
 func mergeRaw(lines []rawLine) []rawLine {
-	slices.SortFunc(lines, func(x, y rawLine) int {
-		if c := cmp.Compare(x.eg, y.eg); c != 0 {
-			return c
-		}
-		return cmp.Compare(x.hz, y.hz)
-	})
+	sortRaw(lines)
 	// Merge runs that start within mergeTolHz of their first line; the
 	// merged line sits at the intensity-weighted position.
 	out := lines[:0]
@@ -411,6 +406,81 @@ func mergeRaw(lines []rawLine) []rawLine {
 	return kept
 }
 
+// sortRaw sorts lines by group, then frequency, stably: a counting sort by
+// group, then each group's run by an LSD radix sort on the frequency's bits
+// (frequencies are finite; -0 sorts before +0).
+func sortRaw(lines []rawLine) {
+	if len(lines) < 2 {
+		return
+	}
+	ng := 0
+	for _, l := range lines {
+		ng = max(ng, l.eg+1)
+	}
+	tmp := make([]rawLine, len(lines))
+	start := make([]int, ng+1)
+	for _, l := range lines {
+		start[l.eg+1]++
+	}
+	for g := 1; g <= ng; g++ {
+		start[g] += start[g-1]
+	}
+	if !slices.IsSortedFunc(lines, func(x, y rawLine) int { return x.eg - y.eg }) {
+		next := slices.Clone(start[:ng])
+		for _, l := range lines {
+			tmp[next[l.eg]] = l
+			next[l.eg]++
+		}
+		copy(lines, tmp)
+	}
+	for g := 0; g < ng; g++ {
+		radixByHz(lines[start[g]:start[g+1]], tmp[start[g]:start[g+1]])
+	}
+}
+
+// hzKey maps a frequency to an integer of the same order.
+func hzKey(hz float64) uint64 {
+	k := math.Float64bits(hz)
+	if k>>63 == 1 {
+		return ^k
+	}
+	return k | 1<<63
+}
+
+// radixByHz sorts ls by frequency (stable), using tmp (same length) as
+// scratch space; passes over bytes that all lines share are skipped.
+func radixByHz(ls, tmp []rawLine) {
+	if len(ls) < 64 {
+		slices.SortStableFunc(ls, func(x, y rawLine) int { return cmp.Compare(hzKey(x.hz), hzKey(y.hz)) })
+		return
+	}
+	src, dst := ls, tmp
+	var count [256]int
+	for shift := 0; shift < 64; shift += 8 {
+		count = [256]int{}
+		for _, l := range src {
+			count[byte(hzKey(l.hz)>>shift)]++
+		}
+		if count[byte(hzKey(src[0].hz)>>shift)] == len(src) {
+			continue
+		}
+		pos := 0
+		for b, c := range count {
+			count[b] = pos
+			pos += c
+		}
+		for _, l := range src {
+			b := byte(hzKey(l.hz) >> shift)
+			dst[count[b]] = l
+			count[b]++
+		}
+		src, dst = dst, src
+	}
+	if &src[0] != &ls[0] {
+		copy(ls, src)
+	}
+}
+
 // distribute shares each merged group's lines among its member groups in
 // proportion to their counts and returns the sorted output lines.
 func (es *esys) distribute(sys System, lines []rawLine, field float64) []Line {
@@ -422,7 +492,7 @@ func (es *esys) distribute(sys System, lines []rawLine, field float64) []Line {
 			out = append(out, Line{Hz: l.hz, PPM: l.hz / field, Intensity: l.inten * f, Group: m})
 		}
 	}
-	slices.SortFunc(out, func(x, y Line) int {
+	byLine := func(x, y Line) int {
 		if c := cmp.Compare(x.Group, y.Group); c != 0 {
 			return c
 		}
@@ -430,6 +500,11 @@ func (es *esys) distribute(sys System, lines []rawLine, field float64) []Line {
 			return c
 		}
 		return cmp.Compare(x.Intensity, y.Intensity)
-	})
+	}
+	// Usually already in order (lines come sorted by merged group and
+	// frequency; most merged groups have one member).
+	if !slices.IsSortedFunc(out, byLine) {
+		slices.SortFunc(out, byLine)
+	}
 	return out
 }
