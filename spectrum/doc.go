@@ -120,7 +120,7 @@
 //     [RefAuto] prefers a TMS line within 0.05 ppm of 0 with S/N ≥ 20, else
 //     a residual with the expected pattern (or within 0.02 ppm), which
 //     confirms the file's axis
-//     when within 0.04 ppm and moves it when further off; [RefTMS] and
+//     when within 0.05 ppm and moves it when further off; [RefTMS] and
 //     [RefSolvent] move the axis onto that signal whenever it is found;
 //     [RefNone] keeps the axis. The TMS and solvent
 //     multiplets are labelled ([LabelTMS], [LabelSolvent]) in every mode;

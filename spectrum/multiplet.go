@@ -67,6 +67,10 @@ type group struct {
 	multiplicity string
 	j            []float64
 	label        string
+	// residual marks the solvent residual pattern found by splitResidual,
+	// centred on the line at residualPPM.
+	residual    bool
+	residualPPM float64
 }
 
 // groupLines partitions the non-artifact lines (ascending ppm) into

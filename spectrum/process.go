@@ -191,6 +191,9 @@ func processTrace(s *Spectrum, c *config) (*processed, error) {
 	p.lines = pickLines(ppm, y, sigma, c.MinSNR, hzPerPoint)
 	flagArtifacts(p.lines, c.field, p.heightAt)
 	p.groups = groupLines(p.lines, c.field, c.JMaxHz, sigma, p.valley)
+	if c.haveSol {
+		p.groups = splitResidual(p.groups, p.lines, c.solvent, c.field)
+	}
 	for k := range p.groups {
 		p.groups[k].analyze(p.lines, c.field)
 	}
@@ -216,6 +219,9 @@ func processTable(s *Spectrum, c *config) (*processed, error) {
 	p := &processed{lines: ls, table: true}
 	flagArtifacts(p.lines, c.field, nil)
 	p.groups = groupLines(p.lines, c.field, c.JMaxHz, 0, func(int, int) float64 { return math.Inf(-1) })
+	if c.haveSol {
+		p.groups = splitResidual(p.groups, p.lines, c.solvent, c.field)
+	}
 	for k := range p.groups {
 		p.groups[k].analyze(p.lines, c.field)
 	}

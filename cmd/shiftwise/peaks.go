@@ -65,7 +65,7 @@ relative integral, multiplicity and couplings, and the picked peaks.
 
 Processing: the axis is referenced (--reference auto: TMS at 0 ppm when its
 line is there; otherwise the residual solvent signal, Fulmer et al. 2010, which
-moves the axis only when it lies more than 0.04 ppm from its tabulated shift;
+moves the axis only when it lies more than 0.05 ppm from its tabulated shift;
 tms, solvent: onto that signal; none: keep the file's axis); the baseline is a
 Whittaker smoother refitted to the signal-free points; the noise is a robust
 (median absolute deviation) standard deviation; peaks must reach --min-snr

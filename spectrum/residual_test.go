@@ -1,0 +1,85 @@
+package spectrum
+
+import (
+	"math"
+	"math/rand/v2"
+	"testing"
+)
+
+// addLorentz adds a Lorentzian of FWHM widthHz and the given height at x0
+// ppm to s (field in MHz).
+func addLorentz(s *Spectrum, x0, height, widthHz float64) {
+	g := widthHz / 2 / s.FieldMHz
+	for i, x := range s.PPM {
+		d := (x - x0) / g
+		s.Y[i] += height / (1 + d*d)
+	}
+}
+
+// noisyAxis is a trace from lo to hi ppm with Gaussian noise of σ = 1.
+func noisyAxis(field, lo, hi float64, n int, seed uint64) *Spectrum {
+	r := rand.New(rand.NewPCG(seed, 11))
+	s := &Spectrum{PPM: make([]float64, n), Y: make([]float64, n), FieldMHz: field, Source: "synthetic"}
+	for i := range s.PPM {
+		s.PPM[i] = lo + (hi-lo)*float64(i)/float64(n-1)
+		s.Y[i] = r.NormFloat64()
+	}
+	return s
+}
+
+// TestResidualQuintetBesideCompound: the CHD2 residual of a CD3 solvent is a
+// 1:2:3:2:1 quintet (one H coupled to two deuterons of spin 1; common
+// practice, no source) at its tabulated shift (Fulmer et al. 2010, Table 1,
+// values from memory). With a compound singlet less than JMaxHz away, the
+// quintet must still be labelled solvent, and the singlet must stay a
+// compound multiplet of its own; at 400 MHz and at a benchtop 60 MHz.
+func TestResidualQuintetBesideCompound(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		solvent        string
+		field, singlet float64
+	}{
+		{"DMSO-d6", 400.13, 2.535},
+		{"acetone-d6", 400.13, 2.08},
+		{"CD3OD", 400.13, 3.345},
+		{"DMSO-d6", 60.0, 2.62},
+		{"acetone-d6", 90.0, 1.95},
+	}
+	for _, c := range cases {
+		sol, _ := LookupSolvent(c.solvent)
+		s := noisyAxis(c.field, 0, 10, 65536, 9)
+		s.Solvent = c.solvent
+		j := sol.JHDHz / c.field
+		for k, w := range []float64{1, 2, 3, 2, 1} {
+			addLorentz(s, sol.ResidualPPM+float64(k-2)*j, 300*w, 0.8)
+		}
+		addLorentz(s, c.singlet, 2000, 1.0)
+		addLorentz(s, 7.0, 700, 1.0) // another compound signal
+		pl, err := Process(s, ProcessOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var solv, single *Multiplet
+		for i := range pl.Multiplets {
+			m := &pl.Multiplets[i]
+			if m.Label == LabelSolvent {
+				solv = m
+			}
+			if math.Abs(m.PPM-c.singlet) < 0.003 && m.Label == "" {
+				single = m
+			}
+		}
+		switch {
+		case solv == nil:
+			t.Errorf("%s at %g MHz: no multiplet labelled solvent; warnings %v", c.solvent, c.field, pl.Warnings)
+		case math.Abs(solv.PPM-sol.ResidualPPM) > 0.002 || solv.Peaks != 5:
+			t.Errorf("%s at %g MHz: solvent multiplet at %.4f with %d peaks, want %.2f with 5", c.solvent, c.field, solv.PPM, solv.Peaks, sol.ResidualPPM)
+		}
+		if single == nil || single.Peaks != 1 {
+			t.Errorf("%s at %g MHz: compound singlet at %.3f not a multiplet of its own: %+v", c.solvent, c.field, c.singlet, single)
+		}
+		if pl.Reference != RefSolvent || pl.ReferencePPM != 0 {
+			t.Errorf("%s at %g MHz: reference %s %+.4f, want solvent +0", c.solvent, c.field, pl.Reference, pl.ReferencePPM)
+		}
+	}
+}
