@@ -58,6 +58,9 @@ Output: a table on a terminal, tab-separated text when piped, or JSON with
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.Smiles = args[0]
+			if err := checkField("predict", o.Field, cmd.Flags().Changed("field")); err != nil {
+				return withCode(exitError, err)
+			}
 			return run(f, o)
 		},
 	}

@@ -111,3 +111,23 @@ func Main(args []string, f *Factory) int {
 // version is the shiftwise version recorded in reports; set at build time
 // with -ldflags "-X main.version=...".
 var version = "dev"
+
+// Bounds of a --field value in MHz. Outside them the number is almost
+// certainly in the wrong unit (Hz, GHz or tesla) or a typo: 1H observe
+// frequencies run from about 40 MHz (benchtop) to about 1200 MHz.
+const (
+	minFieldMHz = 1
+	maxFieldMHz = 10000
+)
+
+// checkField refuses a --field value given explicitly (changed is true) that
+// is not a 1H observe frequency in MHz. An unset flag (0) means the default.
+func checkField(cmd string, v float64, changed bool) error {
+	if !changed {
+		return nil
+	}
+	if !(v >= minFieldMHz && v <= maxFieldMHz) {
+		return fmt.Errorf("%s: --field must be the 1H observe frequency in MHz, between %d and %d (e.g. 400), found %v", cmd, minFieldMHz, maxFieldMHz, v)
+	}
+	return nil
+}

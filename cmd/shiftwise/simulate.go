@@ -95,6 +95,9 @@ func newSimulateCmd(f *Factory) *cobra.Command {
 		},
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.file = args[0]
+			if err := checkField("simulate", o.fieldMHz, cmd.Flags().Changed("field")); err != nil {
+				return withCode(exitError, err)
+			}
 			return runSimulate(f, o)
 		},
 	}
