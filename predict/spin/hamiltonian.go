@@ -365,13 +365,13 @@ func (b *basis) shares(blk int, e0, e1 eigen, grps []int, sig []transition, w, a
 }
 
 // sharesDirect computes the shares transition by transition:
-// A_g(j,i) = Σ over states s and spins k of g of
-// <r|F−_k|s>·V1(r,j)·V0(s,i), with r = s lowered at k.
+// A_g(j,i) = Σ_s V0(s,i)·U_g(s) with U_g(s) = Σ over spins k of g of
+// <r|F−_k|s>·V1(r,j), r = s lowered at k. U is built once per lower state
+// j (sig is grouped by j), and each share is then one dot product.
 func (b *basis) sharesDirect(blk int, e0, e1 eigen, grps []int, sig []transition, sh []float64) {
 	type elem struct {
-		s, r int
-		c    float64
-		k    int // index into grps
+		s, r, k int32 // state in blk, state in blk+1, index into grps
+		c       float64
 	}
 	gi := map[int]int{}
 	for k, g := range grps {
@@ -383,20 +383,27 @@ func (b *basis) sharesDirect(blk int, e0, e1 eigen, grps []int, sig []transition
 			if b.digit(s, k) == sp.twoF {
 				continue
 			}
-			els = append(els, elem{i, b.pos[s+b.stride[k]], lower(sp.twoF, b.m(s, k)), gi[sp.grp]})
+			els = append(els, elem{int32(i), int32(b.pos[s+b.stride[k]]), int32(gi[sp.grp]), lower(sp.twoF, b.m(s, k))})
 		}
 	}
 	var v0t, v1t mat.Dense
 	v0t.CloneFrom(e0.vecs.T())
 	v1t.CloneFrom(e1.vecs.T())
-	g := len(grps)
+	g, d0 := len(grps), len(e0.vals)
+	u := make([]float64, g*d0)
+	cur := -1
 	for t, tr := range sig {
-		x, y := v0t.RawRowView(tr.i), v1t.RawRowView(tr.j)
-		for _, e := range els {
-			sh[t*g+e.k] += e.c * y[e.r] * x[e.s]
+		if tr.j != cur {
+			cur = tr.j
+			clear(u)
+			y := v1t.RawRowView(tr.j)
+			for _, e := range els {
+				u[int(e.k)*d0+int(e.s)] += e.c * y[e.r]
+			}
 		}
+		x := v0t.RawRowView(tr.i)
 		for k := 0; k < g; k++ {
-			sh[t*g+k] *= tr.a
+			sh[t*g+k] = floats.Dot(u[k*d0:(k+1)*d0], x) * tr.a
 		}
 	}
 }
