@@ -4,8 +4,10 @@
 package atomicfile
 
 import (
+	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 	"path/filepath"
 )
@@ -16,6 +18,9 @@ func Write(path string, perm os.FileMode, fill func(w io.Writer) error) (err err
 	dir, base := filepath.Split(path)
 	if dir == "" {
 		dir = "."
+	}
+	if err := checkTarget(path, dir); err != nil {
+		return fmt.Errorf("writing %s: %w", path, err)
 	}
 	tmp, err := os.CreateTemp(dir, "."+base+".tmp-*")
 	if err != nil {
@@ -41,6 +46,25 @@ func Write(path string, perm os.FileMode, fill func(w io.Writer) error) (err err
 	}
 	if err = os.Rename(tmp.Name(), path); err != nil {
 		return fmt.Errorf("writing %s: %w", path, err)
+	}
+	return nil
+}
+
+// checkTarget refuses, before any work, a path that is a directory or
+// whose directory is missing, with messages that name the user's path
+// rather than the temporary file's.
+func checkTarget(path, dir string) error {
+	if fi, err := os.Stat(path); err == nil && fi.IsDir() {
+		return errors.New("is a directory")
+	}
+	fi, err := os.Stat(dir)
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
+		return fmt.Errorf("directory %s does not exist (%w)", filepath.Clean(dir), fs.ErrNotExist)
+	case err != nil:
+		return err
+	case !fi.IsDir():
+		return fmt.Errorf("%s is not a directory", filepath.Clean(dir))
 	}
 	return nil
 }
