@@ -2,6 +2,9 @@ package main
 
 import (
 	"bytes"
+	"fmt"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -41,5 +44,43 @@ func TestFieldFlagRange(t *testing.T) {
 				t.Errorf("%q: exit %d: %s", args, code, errOut)
 			}
 		}
+	}
+}
+
+// TestSimulateAutoFallsBack: in auto mode a strongly coupled cluster too
+// large for exact simulation (here 16 protons 4 Hz apart with J = 7 Hz,
+// |Δν| < 10·J) is computed first-order with a note, as predict does, not
+// refused; exact mode still refuses it (exit 1). The first-order pattern of
+// the end group, coupled to one neighbour, is a doublet (Pascal's triangle).
+func TestSimulateAutoFallsBack(t *testing.T) {
+	var b strings.Builder
+	for i := 0; i < 16; i++ {
+		fmt.Fprintf(&b, "[[group]]\nname = \"g%d\"\nshift_ppm = %.2f\n", i, 1+0.01*float64(i))
+	}
+	for i := 0; i+1 < 16; i++ {
+		fmt.Fprintf(&b, "[[coupling]]\nbetween = [\"g%d\", \"g%d\"]\nj_hz = 7\n", i, i+1)
+	}
+	path := filepath.Join(t.TempDir(), "chain.toml")
+	if err := os.WriteFile(path, []byte(b.String()), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, out, errOut := qaRun("simulate", path)
+	if code != exitOK || !strings.Contains(errOut, "first-order") {
+		t.Fatalf("auto: exit %d, stderr %q; want 0 and a note", code, errOut)
+	}
+	g0 := 0
+	for _, line := range strings.Split(strings.TrimSpace(out), "\n") {
+		if strings.HasPrefix(line, "g0\t") {
+			g0++
+			if !strings.HasSuffix(line, "\tfirst-order") {
+				t.Errorf("line %q: want first-order", line)
+			}
+		}
+	}
+	if g0 != 2 {
+		t.Errorf("g0 has %d lines, want a doublet:\n%s", g0, out)
+	}
+	if code, _, errOut := qaRun("simulate", path, "--mode", "exact"); code != exitError || !strings.Contains(errOut, "too large") {
+		t.Errorf("exact: exit %d, stderr %q; want 1 and the size error", code, errOut)
 	}
 }

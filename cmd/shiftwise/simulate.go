@@ -68,7 +68,8 @@ the pattern change, or compare fields and modes.
 
 Modes: exact diagonalises each coupled cluster; first-order splits every group
 by its partners (Pascal's triangle); auto (default) is exact where |Δν| < 10·|J|
-and first-order elsewhere. 19F and 31P split the 1H lines but are not shown.
+and first-order elsewhere (everywhere, with a note on stderr, when a strongly
+coupled cluster is too large to simulate exactly). 19F and 31P split the 1H lines but are not shown.
 
 Each line is the sum over the groups that take part in the transition and is
 labelled with the group carrying most of it; intensities are scaled so that
@@ -136,6 +137,12 @@ func runSimulate(f *Factory, o *simulateOptions) error {
 	}
 	field := simFirst(o.fieldMHz, sf.FieldMHz, simDefaultField)
 	res, err := spin.Simulate(sf.System, spin.Options{FieldMHz: field, Mode: mode})
+	if mode == spin.Auto && errors.Is(err, spin.ErrTooLarge) {
+		// Auto never fails for want of exact simulation: like predict, it
+		// falls back to first-order patterns and says so.
+		fmt.Fprintf(f.Err, "shiftwise: note: %s: a strongly coupled cluster is too large to simulate exactly; first-order patterns used\n", o.file)
+		res, err = spin.Simulate(sf.System, spin.Options{FieldMHz: field, Mode: spin.FirstOrder})
+	}
 	if err != nil {
 		return withCode(exitError, fmt.Errorf("%s: %w", o.file, err))
 	}
