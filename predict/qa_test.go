@@ -1,6 +1,9 @@
 package predict
 
 import (
+	"math"
+	"strconv"
+	"strings"
 	"testing"
 
 	"shiftwise/predict/spin"
@@ -38,6 +41,33 @@ func TestLoneEquivalentGroup(t *testing.T) {
 		}
 		if lone == nil || lone.Multiplicity != "s" {
 			t.Errorf("%s (%v): signals %+v, want a %d H singlet", tc.smi, tc.mode, p.Signals, tc.nH)
+		}
+	}
+}
+
+// TestRulesAddUp: the rules shown with a signal are its reasons, so for a
+// signal of one heavy atom they must add up to its shift (the additive
+// scheme: δ = base + Σ increments, Pretsch 4th ed., 1H alkanes). Before the
+// fix, an increment applied twice to one proton (the second and third α-Cl
+// of CHCl3, both "α-Cl (×0.8) +2.06") was listed once, so the listed rules
+// summed to 6.13 for a shift of 8.18.
+func TestRulesAddUp(t *testing.T) {
+	for _, smi := range []string{"ClC(Cl)Cl", "BrC(Br)Br", "ClCCl", "ClC(Cl)C(Cl)Cl", "COC(OC)OC", "CC(C)O", "CCOC(C)=O"} {
+		p := mustPredict(t, smi, Options{})
+		for _, s := range p.Signals {
+			if s.Exchangeable {
+				continue
+			}
+			sum := 0.0
+			for _, r := range s.Rules {
+				f := strings.Fields(r)
+				if v, err := strconv.ParseFloat(f[len(f)-1], 64); err == nil {
+					sum += v
+				}
+			}
+			if math.Abs(sum-s.ShiftPPM) > 0.02 {
+				t.Errorf("%s signal %s: rules %q sum to %.3f, shift %.3f", smi, s.Label, s.Rules, sum, s.ShiftPPM)
+			}
 		}
 	}
 }

@@ -88,7 +88,7 @@ func newSystem(m *graph.Mol, opt Options) *system {
 // the SD combines the mean variance of the estimates with their spread.
 func shiftOf(e graph.Environment, ests map[graph.Proton]shiftinc.Estimate) (ppm, sd float64, low bool, rules []string) {
 	var sum, sumSq, varSum float64
-	seen := map[string]bool{}
+	have := map[string]int{}
 	n := 0
 	for i, p := range e.Protons {
 		if i > 0 && e.Protons[i-1].Atom == p.Atom {
@@ -100,9 +100,12 @@ func shiftOf(e graph.Environment, ests map[graph.Proton]shiftinc.Estimate) (ppm,
 		sumSq += est.PPM * est.PPM
 		varSum += est.SD * est.SD
 		low = low || est.LowConfidence
+		// A rule applied k times to one proton (the second and third α-Cl
+		// of CHCl3) is listed k times; a rule shared by the protons once.
+		mine := map[string]int{}
 		for _, r := range est.Rules {
-			if !seen[r] {
-				seen[r] = true
+			if mine[r]++; mine[r] > have[r] {
+				have[r]++
 				rules = append(rules, r)
 			}
 		}
