@@ -28,6 +28,23 @@ func symEigen(a []float64, n int) (vals []float64, ok bool) {
 		a[0] = 1
 		return d, true
 	}
+	// Scale entries of extreme size into a safe range, as LAPACK's Dsyev
+	// does (user spin files may hold any finite shift or J).
+	anrm := 0.0
+	for _, v := range a {
+		anrm = math.Max(anrm, math.Abs(v))
+	}
+	sigma := 1.0
+	if anrm > 0 && anrm < 0x1p-480 {
+		sigma = 0x1p-480 / anrm
+	} else if anrm > 0x1p480 {
+		sigma = 0x1p480 / anrm
+	}
+	if sigma != 1 {
+		for i := range a {
+			a[i] *= sigma
+		}
+	}
 	var impl lapackgo.Implementation
 	e := make([]float64, n) // e[n-1] stays 0
 	tau := make([]float64, n-1)
@@ -42,6 +59,11 @@ func symEigen(a []float64, n int) (vals []float64, ok bool) {
 	e[n-1] = 0
 	if !tql(d, e, a, n) {
 		return nil, false
+	}
+	if sigma != 1 {
+		for i := range d {
+			d[i] /= sigma
+		}
 	}
 	return d, true
 }

@@ -96,6 +96,27 @@ func TestSymEigen(t *testing.T) {
 		}
 	}
 	checkEigen(t, d)
+	// Extreme scales (the solver rescales them).
+	// Eigenvalues of f·X are f times those of X (gonum's own EigenSym
+	// panics in its scaling step at these sizes, so X is the reference).
+	x := mat.NewSymDense(3, []float64{1, 2, 0, 2, 3, 1, 0, 1, -1})
+	var ref mat.EigenSym
+	ref.Factorize(x, false)
+	want := ref.Values(nil)
+	for _, f := range []float64{1e-200, 1e250} {
+		y := mat.NewSymDense(3, nil)
+		y.ScaleSym(f, x)
+		vals, ok := symEigen(y.RawSymmetric().Data, 3)
+		if !ok {
+			t.Fatalf("scale %g: no convergence", f)
+		}
+		slices.Sort(vals)
+		for i := range vals {
+			if math.Abs(vals[i]/f-want[i]) > 1e-13 {
+				t.Errorf("scale %g: eigenvalue %d = %g·f, want %g·f", f, i, vals[i]/f, want[i])
+			}
+		}
+	}
 	// A spin Hamiltonian block (Hz, spread over hundreds of Hz).
 	checkEigen(t, chainBlock(8, 0.05))
 }
