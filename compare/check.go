@@ -179,7 +179,7 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 	}
 	eff, pre = splitHiddenLines(&p2, sig, eff, pre, sigM, field, solv, solvOK)
 	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff, trace: trace}
-	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras)
+	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras, compoundWindows(&p2, sig, sigM, eff, field))
 	ev.evaluate(eff, field)
 	return ev
 }
@@ -305,10 +305,11 @@ func rankCandidates(res *Result, in Input, opt Options, pr Predictor, main *eval
 		res.Candidates = append(res.Candidates, list[k].c)
 	}
 	if best := list[0]; !best.c.Main && best.ev != nil {
-		res.Reasons = append(res.Reasons, fmt.Sprintf("candidate %s fits the spectrum better (score %.2f vs %.2f)",
-			best.c.Smiles, best.c.Score, main.score))
-		if res.Verdict == Consistent && best.c.Score-main.score > 0.05 {
-			res.Verdict = Review
+		candidateRule(res, main, best.ev, best.ev.score)
+		for k := range res.Candidates {
+			if res.Candidates[k].Main {
+				res.Candidates[k].Verdict = res.Verdict
+			}
 		}
 	}
 }

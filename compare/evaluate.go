@@ -27,7 +27,6 @@ const (
 	maxBadFrac        = 0.20 // bad H fraction above this: inconsistent
 	minIntegralScore  = 0.60 // below: inconsistent
 	reviewIntegral    = 0.80 // below: review
-	maxUnknownPct     = 10.0 // unknown intensity above this (%): review
 	maxShapeFrac      = 0.20 // H with a clearly different multiplicity above this: review
 	shapeWeight       = 0.5  // share of the trace-shape correlation in the splitting score
 )
@@ -221,19 +220,26 @@ func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
 	if shapeN >= 2 || (nonExch > 0 && shapeH/nonExch > maxShapeFrac) {
 		review = true
 	}
+	if p.Splitting < reviewSplitting {
+		rs = append(rs, fmt.Sprintf("multiplicities and multiplet shapes agree poorly overall (splitting %.0f %%)", 100*p.Splitting))
+		review = true
+	}
 	if nonExch > 0 && badH/nonExch > maxBadFrac {
 		incons = true
 	} else if badH+poorH > 0 {
 		review = true
 	}
 	rs = append(rs, ev.regionReasons(ms)...)
+	if len(ev.regionsOff(ms)) > 0 {
+		review = true // a region off by a whole proton or more
+	}
 	if p.Integrals < minIntegralScore {
 		incons = true
 	} else if p.Integrals < reviewIntegral {
 		review = true
 	}
-	if u := 100 * (1 - p.Explained); u > maxUnknownPct {
-		rs = append(rs, fmt.Sprintf("unexplained peaks hold %.0f %% of the measured intensity", u))
+	if u := 100 * (1 - p.Explained); ev.unknownRule(u) {
+		rs = append(rs, fmt.Sprintf("unexplained peaks hold %.0f %% of the measured intensity%s", u, ev.largestUnknown()))
 		review = true
 	}
 	switch {
@@ -294,23 +300,9 @@ var regions = []struct {
 func (ev *evaluation) regionReasons(ms []mplet) []string {
 	var out []string
 	for _, r := range regions {
-		exp := 0.0
-		hosts := map[int]bool{}
-		for i, s := range ev.pred.Signals {
-			if s.Exchangeable || s.ShiftPPM < r.lo || s.ShiftPPM >= r.hi {
-				continue
-			}
-			exp += float64(s.NH)
-			if j := ev.sigM[i]; j >= 0 {
-				hosts[j] = true
-			}
-		}
+		got, exp := ev.regionH(ms, r.lo, r.hi)
 		if exp == 0 {
 			continue
-		}
-		got := 0.0
-		for j := range hosts {
-			got += ms[j].area * ev.scale
 		}
 		if math.Abs(got-exp) > math.Max(0.6, 0.15*exp) {
 			out = append(out, fmt.Sprintf("integral of the %s is %.1f H, %.0f expected", r.name, got, exp))
@@ -395,6 +387,7 @@ func (ev *evaluation) discriminating(ms []mplet) []string {
 					ms[j].ppm, orM(ms[j].mult), ev.z[i]))
 			}
 		}
+		out = append(out, ev.shortSignals(ms)...)
 		out = append(out, ev.regionReasons(ms)...)
 	}
 	sort.Strings(out)

@@ -43,6 +43,7 @@ type explanation struct {
 	unknownArea float64
 	amounts     map[string]float64 // molecules per compound molecule, per found species
 	extraHits   map[string][]extraHit
+	busy        [][2]float64 // ppm windows where the compound has lines (compoundWindows)
 }
 
 // extraHit is one matched signal of a user-given species.
@@ -74,8 +75,9 @@ func claimFixed(ms []mplet, solv SolventInfo, solvOK bool) []string {
 
 // explain labels every multiplet the compound assignment left over.
 func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, field float64,
-	solv SolventInfo, solvOK bool, extras []extraSpecies) *explanation {
-	ex := &explanation{owner: append([]string(nil), pre...), amounts: map[string]float64{}, extraHits: map[string][]extraHit{}}
+	solv SolventInfo, solvOK bool, extras []extraSpecies, busy [][2]float64) *explanation {
+	ex := &explanation{owner: append([]string(nil), pre...), amounts: map[string]float64{}, extraHits: map[string][]extraHit{},
+		busy: busy}
 	{
 		for j, o := range pre {
 			if o == "solvent" {
@@ -251,7 +253,7 @@ func (ex *explanation) matchExtra(ms []mplet, e extraSpecies, scale float64) {
 	id.MatchedH = float64(gotH)
 	ex.extraHits[e.name] = hits
 	if scale > 0 && e.kind == "impurity" {
-		ex.amounts[e.name] = area * scale / float64(gotH)
+		ex.amounts[e.name] = extraAmount(ms, hits, scale, ex.busy)
 	}
 	ex.found = append(ex.found, id)
 }
@@ -372,6 +374,9 @@ func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string, scale fl
 			if sp.Kind == "contaminant" && sg.Mult != "m" && w > maxSharpWidth {
 				continue // a broad hump is not a sharp solvent line
 			}
+			if !tableMultOK(sg.Mult, ms[j].mult) {
+				continue // a tabulated singlet is not a resolved d, t, q, …
+			}
 			d := math.Max(0, math.Abs(ms[j].ppm-want)-0.5*w)
 			if d <= sp.Tol && d < bd {
 				best, bd = j, d
@@ -475,7 +480,7 @@ func (ex *explanation) listLeftovers(ms []mplet, expectH []float64, scale float6
 			excess := hm - expectH[j]
 			if expectH[j] > 0 && excess > math.Max(0.5, 0.3*expectH[j]) {
 				a := excess / scale
-				like := likelyAt(m, solv, solvOK)
+				like := likelyAt(m, solv, solvOK, false)
 				u := Unexplained{PPM: m.ppm, IntegralH: excess, Percent: pct(a), Likely: like, FromPPM: m.from, ToPPM: m.to,
 					Multiplicity: m.mult, Kind: "unknown", Multiplet: m.idx}
 				if like != "" {
@@ -491,7 +496,7 @@ func (ex *explanation) listLeftovers(ms []mplet, expectH []float64, scale float6
 				Multiplicity: m.mult, Kind: kindOf[o], Multiplet: m.idx}
 			if o == "" {
 				u.Kind = "unknown"
-				if l := likelyAt(m, solv, solvOK); l != "" {
+				if l := likelyAt(m, solv, solvOK, true); l != "" {
 					u.Likely = "possibly " + l
 				}
 				ex.unknownArea += m.area
@@ -503,8 +508,9 @@ func (ex *explanation) listLeftovers(ms []mplet, expectH []float64, scale float6
 }
 
 // likelyAt names table species with a signal inside (or within 0.05 ppm of)
-// the multiplet.
-func likelyAt(m mplet, solv SolventInfo, solvOK bool) string {
+// the multiplet; with checkMult, only signals whose multiplicity the
+// multiplet can have (tableMultOK).
+func likelyAt(m mplet, solv SolventInfo, solvOK, checkMult bool) string {
 	if !solvOK {
 		return ""
 	}
@@ -515,7 +521,7 @@ func likelyAt(m mplet, solv SolventInfo, solvOK bool) string {
 		}
 		for _, sg := range sp.Signals {
 			p := sg.PPM[solv.Name]
-			if p >= m.from-0.05 && p <= m.to+0.05 {
+			if p >= m.from-0.05 && p <= m.to+0.05 && (!checkMult || tableMultOK(sg.Mult, m.mult)) {
 				names = append(names, sp.Name)
 				break
 			}

@@ -47,8 +47,22 @@ satellites, the --impurity structures), estimates purity and gives a verdict:
   review         a person must look (reasons are listed)      exit status 4
   usage or input error                                        exit status 1
 
+Among the rules for review: a signal missing or more than 3 SD away; a
+region (below 3, 3-6.3, 6.3-9, above 9 ppm) short by 1 H and 20 % or more
+with a multiplet holding at most 60 % of its H; unexplained peaks above 10 %
+of the intensity, or above 5 % with one of at least 0.5 H. A contaminant
+from the tables must have a compatible multiplicity: a tabulated singlet
+never explains a resolved d, t, q, dd ...
+
 --candidate ranks further structures (isomers, starting material, by-product)
-against the same spectrum and names the signals that tell them apart.
+against the same spectrum and names the signals that tell them apart. A
+candidate scoring 0.03 higher than the intended structure means review; 0.05
+higher while the intended structure has a missing or far signal or a region
+short of a proton means inconsistent.
+
+Impurity amounts (--impurity) come from the impurity's signals clear of the
+compound's lines (median per proton), so an overlapped multiplet does not
+inflate them.
 
 qNMR: with --standard SMILES --standard-mass MG --sample-mass MG
 --standard-purity PCT the mass purity of the sample is computed with the

@@ -1,0 +1,90 @@
+package compare
+
+import (
+	"math"
+	"sort"
+
+	"shiftwise/predict"
+)
+
+// busyMarginHz widens a compound signal's window by the line width and
+// digital resolution (common practice, no source).
+const busyMarginHz = 3.0
+
+// compoundWindows returns the ppm windows where the compound has lines: for
+// each assigned non-exchangeable signal, its predicted lines around the
+// predicted shift and around the measured multiplet, and the measured
+// multiplet itself.
+func compoundWindows(pred *predict.Prediction, sig []predict.Signal, sigM []int, ms []mplet, field float64) [][2]float64 {
+	margin := 0.01
+	if field > 0 {
+		margin = busyMarginHz / field
+	}
+	var out [][2]float64
+	for i, s := range sig {
+		j := sigM[i]
+		if j < 0 {
+			continue
+		}
+		ext := lineExtent(pred, s) + margin
+		out = append(out, [2]float64{s.ShiftPPM - ext, s.ShiftPPM + ext},
+			[2]float64{ms[j].ppm - ext, ms[j].ppm + ext}, [2]float64{ms[j].from, ms[j].to})
+	}
+	return out
+}
+
+// overlapped reports whether multiplet m touches one of the windows.
+func overlapped(m mplet, win [][2]float64) bool {
+	for _, w := range win {
+		if m.to >= w[0] && m.from <= w[1] {
+			return true
+		}
+	}
+	return false
+}
+
+// extraAmount estimates the molecules of a user-given impurity per
+// compound molecule from its matched signals: the H-weighted median of the
+// per-proton amounts (area × scale / H) over the signals clear of the
+// compound's lines (compoundWindows); when every signal overlaps the
+// compound, the smallest per-proton amount (an overlapped signal can only
+// gain area). One signal picking up compound intensity (a line of the
+// compound's multiplet grouped apart by processing, an aromatic
+// multiplet shared with the compound) thus no longer inflates the amount.
+func extraAmount(ms []mplet, hits []extraHit, scale float64, win [][2]float64) float64 {
+	type est struct{ a, w float64 }
+	var clean, all []est
+	for _, h := range hits {
+		if h.sig.NH <= 0 {
+			continue
+		}
+		e := est{ms[h.j].area * scale / float64(h.sig.NH), float64(h.sig.NH)}
+		all = append(all, e)
+		if !overlapped(ms[h.j], win) {
+			clean = append(clean, e)
+		}
+	}
+	if len(all) == 0 {
+		return 0
+	}
+	if len(clean) == 0 {
+		lo := math.Inf(1)
+		for _, e := range all {
+			lo = math.Min(lo, e.a)
+		}
+		return lo
+	}
+	sort.Slice(clean, func(a, b int) bool { return clean[a].a < clean[b].a })
+	tot := 0.0
+	for _, e := range clean {
+		tot += e.w
+	}
+	acc := 0.0
+	for _, e := range clean {
+		acc += e.w
+		if acc >= tot/2 {
+			return e.a
+		}
+	}
+	return clean[len(clean)-1].a
+}
