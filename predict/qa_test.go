@@ -71,3 +71,20 @@ func TestRulesAddUp(t *testing.T) {
 		}
 	}
 }
+
+// TestEmptyPredictionSaysWhy: a prediction without signals carries a
+// warning, so an empty result is never silent. CCl4, CD3Cl and NaCl have no
+// protium on a heavy atom; H2 and H+ have protons that this scheme (protons
+// on heavy atoms) cannot place (H2 appears near 4.6 ppm in CDCl3, Fulmer
+// et al. 2010; value from memory). Ethanol gets no such warning.
+func TestEmptyPredictionSaysWhy(t *testing.T) {
+	for _, smi := range []string{"ClC(Cl)(Cl)Cl", "[2H]C([2H])([2H])Cl", "[Na+].[Cl-]", "[H][H]", "[H+]"} {
+		p := mustPredict(t, smi, Options{})
+		if len(p.Signals) != 0 || len(p.Warnings) == 0 {
+			t.Errorf("%s: %d signals, warnings %q; want none and a warning", smi, len(p.Signals), p.Warnings)
+		}
+	}
+	if p := mustPredict(t, "CCO", Options{}); len(p.Warnings) != 0 {
+		t.Errorf("ethanol: warnings %q", p.Warnings)
+	}
+}

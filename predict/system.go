@@ -76,12 +76,33 @@ func newSystem(m *graph.Mol, opt Options) *system {
 		}
 		s.envs = append(s.envs, st)
 	}
+	s.noteUnobserved()
 	s.findHetero()
 	s.couple(opt)
 	for i := range s.envs {
 		s.envs[i].partners = s.partnerSets(i, opt.FieldMHz)
 	}
 	return s
+}
+
+// noteUnobserved warns when the structure has no 1H signal to predict and
+// about protium atoms bonded to no single heavy atom (H2, H+, a bridging H),
+// which have no environment and so no signal: an empty prediction must not
+// pass for a silent "nothing to see".
+func (s *system) noteUnobserved() {
+	free := 0
+	for a := range s.m.Atoms {
+		if at := &s.m.Atoms[a]; at.Element == "H" && at.Isotope <= 1 {
+			free++
+		}
+	}
+	if free > 0 {
+		s.warnings = append(s.warnings, fmt.Sprintf(
+			"%d hydrogen atom(s) not bonded to a single heavy atom (as in [H][H] or [H+]) are not predicted", free))
+	}
+	if free == 0 && len(s.envs) == 0 && len(s.warnings) == 0 {
+		s.warnings = append(s.warnings, "no 1H signals: the structure has no protium (1H) bonded to a heavy atom")
+	}
 }
 
 // shiftOf averages the increment estimates of an environment's protons:
