@@ -172,7 +172,7 @@ func printDescribeTable(w io.Writer, r *describeResult) {
 	tw.Flush()
 	fmt.Fprintln(w)
 	if len(r.Environments) == 0 {
-		fmt.Fprintln(w, "no hydrogens")
+		fmt.Fprintln(w, "no proton environments (no protium bonded to a heavy atom)")
 		return
 	}
 	tw = tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)

@@ -84,3 +84,16 @@ func TestSimulateAutoFallsBack(t *testing.T) {
 		t.Errorf("exact: exit %d, stderr %q; want 1 and the size error", code, errOut)
 	}
 }
+
+// TestDescribeNoEnvironments: H2 has hydrogens (its formula says H2) but
+// no proton environment on a heavy atom; the table must not claim "no
+// hydrogens" beside a formula with H in it (common practice, no source).
+func TestDescribeNoEnvironments(t *testing.T) {
+	for _, smi := range []string{"[H][H]", "[2H]C([2H])([2H])Cl", "ClC(Cl)(Cl)Cl"} {
+		var o, e bytes.Buffer
+		code := Main([]string{"describe", smi}, &Factory{In: strings.NewReader(""), Out: &o, Err: &e, IsTTY: true})
+		if code != exitOK || strings.Contains(o.String(), "no hydrogens") || !strings.Contains(o.String(), "no proton environments") {
+			t.Errorf("%s: exit %d, output:\n%s", smi, code, o.String())
+		}
+	}
+}
