@@ -100,7 +100,11 @@
 //     they are at most JMaxHz apart (default [DefaultJMaxHz], 20 Hz) or the
 //     trace between them stays above a quarter of the smaller one (and 3σ),
 //     in both cases only when the new peak and the tallest peak of the
-//     multiplet so far differ by less than a factor of 30. Each multiplet
+//     multiplet so far differ by less than a factor of 30. When the solvent
+//     is known, the residual quintet of a CD3 solvent (1:2:3:2:1, J(HD)
+//     about 2 Hz) or the 1:1:1 triplet of CD2Cl2 is found among the lines
+//     grouped with it and given a multiplet of its own (residual.go). Each
+//     multiplet
 //     gets a first-order analysis after Hoye, Hanson & Vyvyan 1994:
 //     symmetric positions and intensities (within roofing), intensities in
 //     whole units of an outer line summing to a power of two, couplings
@@ -119,10 +123,9 @@
 //     only when the signal is found within 0.15 ppm. ProcessOptions.Reference
 //     [RefAuto] prefers a TMS line within 0.05 ppm of 0 with S/N ≥ 20, else
 //     a residual with the expected pattern (or within 0.02 ppm), which
-//     confirms the file's axis
-//     when within 0.05 ppm and moves it when further off; [RefTMS] and
-//     [RefSolvent] move the axis onto that signal whenever it is found;
-//     [RefNone] keeps the axis. The TMS and solvent
+//     confirms the file's axis when within 0.05 ppm and moves it when
+//     further off; [RefTMS] and [RefSolvent] move the axis onto that signal
+//     whenever it is found; [RefNone] keeps the axis. The TMS and solvent
 //     multiplets are labelled ([LabelTMS], [LabelSolvent]) in every mode;
 //     PeakList.ReferencePPM is the shift applied.
 //
