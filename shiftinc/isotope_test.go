@@ -2,6 +2,7 @@ package shiftinc
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -39,6 +40,28 @@ func TestDeuteriumIsH(t *testing.T) {
 		}
 		if got.LowConfidence && !want.LowConfidence {
 			t.Errorf("%s: low confidence only because of the D (rules %q)", tc.name, got.Rules)
+		}
+	}
+}
+
+// TestOverrideKeyCase: the decoder fills Row.CH from "CH = …" as from
+// "ch = …" (it matches field names without regard to case), and the rule
+// listing writes "CH base", "CH3 base"; so an override written "CH = 3.0"
+// must change the methine increment. Before the fix it was decoded but not
+// applied: the row kept the built-in value, silently.
+func TestOverrideKeyCase(t *testing.T) {
+	for _, src := range []string{
+		"[[alpha]]\nkey = \"Cl\"\nCH = 3.0\n",
+		"[[alpha]]\nkey = \"Cl\"\nch = 3.0\n",
+		"[[alpha]]\nkey = \"Cl\"\nCh = 3.0\n",
+	} {
+		tab := Default().Clone()
+		if err := tab.Merge(strings.NewReader(src), "case.toml"); err != nil {
+			t.Fatalf("%q: %v", src, err)
+		}
+		r, def := tab.row("alpha", "Cl"), Default().row("alpha", "Cl")
+		if r.CH != 3.0 || r.CH3 != def.CH3 || r.CH2 != def.CH2 {
+			t.Errorf("%q: row ch3 %.2f ch2 %.2f ch %.2f; want ch 3.00 and the rest unchanged", src, r.CH3, r.CH2, r.CH)
 		}
 	}
 }

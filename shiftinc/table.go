@@ -490,11 +490,12 @@ func (li lineIndex) keyLine(k toml.Key) int {
 }
 
 // overlay returns base with the fields of upd that the file gave (set)
-// copied over.
+// copied over. Keys match without regard to case, as the decoder matches
+// them to the Row fields ("CH3 = …" fills CH3 like "ch3 = …").
 func overlay(base, upd Row, set map[string]any) Row {
 	out := base
 	for k := range set {
-		switch k {
+		switch strings.ToLower(k) {
 		case "ppm":
 			out.PPM = upd.PPM
 		case "ch3":
