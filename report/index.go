@@ -13,13 +13,15 @@ var indexTemplate string
 
 // IndexRow is one sample of a batch on the index page.
 type IndexRow struct {
-	ID          string
-	Verdict     string // "consistent", "inconsistent", "review", or "" on error
-	Score       float64
-	Purity      *float64 // molar or qNMR purity, % ; nil when not estimated
-	Unexplained int
-	Error       string // the sample's error, when it could not be checked
-	Report      string // relative link to the sample's page; "" when none
+	ID           string
+	Verdict      string // "consistent", "inconsistent", "review", or "" on error
+	Score        float64
+	Purity       *float64 // molar or qNMR purity, % ; nil when not estimated
+	PurityMethod string   // "qNMR" or "molar estimate"
+	Unexplained  int
+	Found        string // recognised species other than the compound
+	Error        string // the sample's error, when it could not be checked
+	Report       string // relative link to the sample's page; "" when none
 }
 
 // Index is the content of a batch's index page.

@@ -10,6 +10,7 @@ import (
 	"regexp"
 	"runtime"
 	"strconv"
+	"strings"
 	"sync"
 	"time"
 
@@ -26,6 +27,7 @@ type Row struct {
 	PurityPercent *float64 `json:"purity_percent"` // qNMR when available, else molar estimate
 	PurityMethod  string   `json:"purity_method,omitempty"`
 	Unexplained   int      `json:"unexplained_peaks"`
+	Found         string   `json:"found"` // recognised species other than the compound, e.g. "ethyl acetate 7.4 mol%; water"
 	Error         string   `json:"error"`
 	Report        string   `json:"report"` // file name of the sample's report, relative to the output dir
 }
@@ -133,12 +135,15 @@ func runOne(m *Manifest, i int, invalid error, file string, opt Options) (row Ro
 	in, copt := m.input(i)
 	res, err := opt.Check(in, copt)
 	if err != nil {
-		row.Error = err.Error()
+		// The check's error names the spectrum file or the option; say
+		// which sample of the manifest it belongs to.
+		row.Error = fmt.Sprintf("%s (%s): %v", m.where(i), row.ID, err)
 		return row
 	}
 	row.Verdict = string(res.Verdict)
 	row.Score = res.Score
 	row.Unexplained = len(res.Unexplained)
+	row.Found = foundSummary(res)
 	switch {
 	case res.Purity.QNMRMassPercent != nil:
 		row.PurityPercent, row.PurityMethod = res.Purity.QNMRMassPercent, "qNMR"
@@ -167,6 +172,33 @@ func removeStaleTemps(dir string) {
 	for _, f := range stale {
 		os.Remove(f)
 	}
+}
+
+// foundSummary lists the species other than the compound that the check
+// recognised (residual protio solvent excluded: it is always there), with
+// their molar share where one was estimated.
+func foundSummary(res *compare.Result) string {
+	var parts []string
+	water := 0.0
+	for _, u := range res.Unexplained {
+		if u.Kind == "water" {
+			water += u.IntegralH
+		}
+	}
+	for _, f := range res.Found {
+		if f.Kind == "solvent" || f.Kind == "standard" || strings.HasPrefix(f.Name, "TMS") {
+			continue
+		}
+		switch {
+		case f.Kind == "water" && water > 0:
+			parts = append(parts, fmt.Sprintf("water %.2f H-eq", water))
+		case f.MolPercent > 0:
+			parts = append(parts, fmt.Sprintf("%s %.1f mol%%", f.Name, f.MolPercent))
+		default:
+			parts = append(parts, f.Name)
+		}
+	}
+	return strings.Join(parts, "; ")
 }
 
 var unsafeChars = regexp.MustCompile(`[^A-Za-z0-9._-]+`)
@@ -211,7 +243,8 @@ func writeOutputs(m *Manifest, sum *Summary, opt Options) error {
 	}
 	for _, r := range sum.Rows {
 		ix.Rows = append(ix.Rows, report.IndexRow{ID: r.ID, Verdict: r.Verdict, Score: r.Score,
-			Purity: r.PurityPercent, Unexplained: r.Unexplained, Error: r.Error, Report: r.Report})
+			Purity: r.PurityPercent, PurityMethod: r.PurityMethod, Unexplained: r.Unexplained, Found: r.Found,
+			Error: r.Error, Report: r.Report})
 	}
 	return atomicfile.Write(filepath.Join(dir, "index.html"), 0o644, func(w io.Writer) error {
 		return report.WriteIndex(w, ix)
@@ -221,7 +254,7 @@ func writeOutputs(m *Manifest, sum *Summary, opt Options) error {
 // WriteCSV writes the summary as CSV with a header row.
 func WriteCSV(w io.Writer, sum *Summary) error {
 	cw := csv.NewWriter(w)
-	cw.Write([]string{"id", "verdict", "score", "purity_percent", "purity_method", "unexplained_peaks", "error", "report"})
+	cw.Write([]string{"id", "verdict", "score", "purity_percent", "purity_method", "unexplained_peaks", "found", "error", "report"})
 	for _, r := range sum.Rows {
 		pur := ""
 		if r.PurityPercent != nil {
@@ -231,7 +264,7 @@ func WriteCSV(w io.Writer, sum *Summary) error {
 		if r.Error == "" {
 			score = strconv.FormatFloat(r.Score, 'f', 3, 64)
 		}
-		cw.Write([]string{r.ID, r.Verdict, score, pur, r.PurityMethod, strconv.Itoa(r.Unexplained), r.Error, r.Report})
+		cw.Write([]string{r.ID, r.Verdict, score, pur, r.PurityMethod, strconv.Itoa(r.Unexplained), r.Found, r.Error, r.Report})
 	}
 	cw.Flush()
 	return cw.Error()

@@ -184,3 +184,18 @@ func TestPanicIsContained(t *testing.T) {
 }
 
 func spectrumWrite(f *os.File, s *spectrum.Spectrum) error { return spectrum.WriteJCAMP(f, s, true) }
+
+func TestFoundSummary(t *testing.T) {
+	res := &compare.Result{
+		Found: []compare.Identity{
+			{Name: "CHCl3 (residual solvent)", Kind: "solvent"},
+			{Name: "TMS (reference)", Kind: "contaminant"},
+			{Name: "ethyl acetate", Kind: "contaminant", MolPercent: 7.14},
+			{Name: "water", Kind: "water"},
+		},
+		Unexplained: []compare.Unexplained{{Kind: "water", IntegralH: 2.456}},
+	}
+	if got, want := foundSummary(res), "ethyl acetate 7.1 mol%; water 2.46 H-eq"; got != want {
+		t.Fatalf("got %q, want %q", got, want)
+	}
+}

@@ -108,21 +108,24 @@ func progressReporter(f *Factory, total int) func(int, int, screen.Row) {
 
 func printScreenSummary(f *Factory, sum *screen.Summary) {
 	if f.IsTTY {
-		fmt.Fprintf(f.Out, "%-16s %-13s %6s %8s %6s  %s\n", "sample", "verdict", "score", "purity%", "unexpl", "error")
+		fmt.Fprintf(f.Out, "%-16s %-13s %6s %8s %6s  %s\n", "sample", "verdict", "score", "purity%", "unexpl", "found / error")
 	}
 	for _, r := range sum.Rows {
 		pur := "-"
 		if r.PurityPercent != nil {
 			pur = fmt.Sprintf("%.1f", *r.PurityPercent)
+			if r.PurityMethod == "qNMR" {
+				pur += "q"
+			}
 		}
 		v := r.Verdict
 		if r.Error != "" {
 			v = "error"
 		}
 		if f.IsTTY {
-			fmt.Fprintf(f.Out, "%-16s %-13s %6.2f %8s %6d  %s\n", r.ID, v, r.Score, pur, r.Unexplained, r.Error)
+			fmt.Fprintf(f.Out, "%-16s %-13s %6.2f %8s %6d  %s%s\n", r.ID, v, r.Score, pur, r.Unexplained, r.Found, r.Error)
 		} else {
-			fmt.Fprintf(f.Out, "%s\t%s\t%.3f\t%s\t%d\t%s\n", r.ID, v, r.Score, pur, r.Unexplained, r.Error)
+			fmt.Fprintf(f.Out, "%s\t%s\t%.3f\t%s\t%d\t%s\t%s\n", r.ID, v, r.Score, pur, r.Unexplained, r.Found, r.Error)
 		}
 	}
 }
