@@ -43,7 +43,11 @@
 // Tolerated inconsistencies (a line whose X disagrees with FIRSTX and
 // DELTAX by more than one point spacing, a DELTAX that disagrees with
 // FIRSTX, LASTX and NPOINTS) are listed in Spectrum.Warnings; a wrong point
-// count, a failed DIF Y-check or a bad character is an error.
+// count, a failed DIF Y-check or a bad character is an error. A file whose
+// last block lacks ##END= is read (with a warning) only when that block is
+// an XYDATA trace whose ##NPOINTS= the data match; otherwise the missing
+// ##END= is reported as a truncated file. Files with CR-only line ends are
+// read as if they had LF.
 //
 // # CSV
 //
@@ -98,7 +102,9 @@
 //     join no multiplet.
 //   - Multiplets (multiplet.go): neighbouring peaks join one multiplet when
 //     they are at most JMaxHz apart (default [DefaultJMaxHz], 20 Hz) or the
-//     trace between them stays above a quarter of the smaller one (and 3σ),
+//     trace between them stays above a quarter of the smaller of the new
+//     peak and the tallest peak of the multiplet so far (and 3σ; a weak
+//     broad hump between two multiplets does not chain them),
 //     in both cases only when the new peak and the tallest peak of the
 //     multiplet so far differ by less than a factor of 30. When the solvent
 //     is known, the residual quintet of a CD3 solvent (1:2:3:2:1, J(HD)

@@ -13,9 +13,11 @@ import (
 // Grouping. Peaks are taken in ppm order; two neighbours belong to the same
 // multiplet when their distance is at most JMaxHz (default 20 Hz, above
 // nearly all 2J and 3J H–H couplings; common practice, no source), or when
-// the trace between them never falls below a quarter of the smaller peak (the
-// two lines overlap so much that no integral boundary can be drawn between
-// them), with 3σ as a floor — in both cases only when the new peak and the
+// the trace between them never falls below a quarter of the smaller of the
+// new peak and the tallest peak of the multiplet so far (the two signals
+// overlap so much that no integral boundary can be drawn between them; a
+// weak broad hump, an NH or OH, must not chain two multiplets through its
+// own low height), with 3σ as a floor — in both cases only when the new peak and the
 // tallest peak of the multiplet so far differ by less than groupMaxRatio
 // (the outer line of a septet is 1/20 of its centre, Pascal's triangle), so
 // that small signals on the foot of a strong line stay separate. Peaks
@@ -87,7 +89,7 @@ func groupLines(ls []line, fieldMHz, jMaxHz, sigma float64, valley func(a, b int
 		if len(cur) > 0 {
 			p := cur[len(cur)-1]
 			gap := (ls[i].ppm - ls[p].ppm) * fieldMHz
-			floor := math.Max(3*sigma, 0.25*math.Min(ls[i].height, ls[p].height))
+			floor := math.Max(3*sigma, 0.25*math.Min(ls[i].height, gmax))
 			hi, lo := math.Max(ls[i].height, gmax), math.Min(ls[i].height, gmax)
 			join := hi <= groupMaxRatio*lo && (gap <= jMaxHz || valley(p, i) > floor)
 			if !join {

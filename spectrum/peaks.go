@@ -18,7 +18,9 @@ import (
 // gives x₀ and A without the bias that a parabola through y itself has
 // (common practice, no source; the reciprocal trick follows from the line
 // shape). The full width at half height is measured where the line is
-// resolved and taken from the same parabola where it is not.
+// resolved and taken from a Lorentzian through the top and two points on
+// either side where it is not; for a broad line, whose top three points
+// differ by noise only, those two points lie further out (see topWidth).
 
 const (
 	pickProminence = 3.0  // minimum prominence in units of σ
@@ -29,6 +31,8 @@ const (
 	// pickKeepFrac: a maximum at least this fraction of the tallest line is
 	// kept however narrow (no noise point reaches it); see dropNarrow.
 	pickKeepFrac = 0.05
+	// topDropSNR: see topWidth.
+	topDropSNR = 10.0
 )
 
 // line is a picked peak during processing, in point and Hz coordinates.
@@ -202,8 +206,37 @@ func halfWidth(y []float64, i int, height, pos, sigma float64) float64 {
 	case okR && right > pos:
 		return 2 * (right - pos)
 	}
-	// Lorentzian curvature at the top: y'' = −2A/γ², FWHM = 2γ.
-	curv := y[i-1] - 2*y[i] + y[i+1]
+	return topWidth(y, i, height, sigma)
+}
+
+// topWidth is the full width at half height (points) of a Lorentzian
+// through the top point and the two points k away on either side:
+// 1/y = (1 + ((x−x₀)/γ)²)/A is a parabola whose second difference over ±k
+// is 2k²/(Aγ²), so γ = k·√(2/(A·D)) with D = 1/y₋ₖ − 2/A + 1/y₊ₖ (exact for
+// a Lorentzian, from the line shape). k = 1 unless the top drops by less
+// than topDropSNR·σ over ±1 point (a broad line: noise would decide the
+// curvature); then k doubles until the mean of the two points lies
+// topDropSNR·σ (or a quarter of the height) below the top.
+func topWidth(y []float64, i int, height, sigma float64) float64 {
+	n := len(y)
+	k := 1
+	drop := func(k int) float64 { return height - (y[i-k]+y[i+k])/2 }
+	if drop(1) < topDropSNR*sigma {
+		for 2*k <= i && i+2*k < n && 2*k <= n/4 {
+			k *= 2
+			if drop(k) >= math.Min(topDropSNR*sigma, height/4) {
+				break
+			}
+		}
+	}
+	a, c := y[i-k], y[i+k]
+	if a > 0 && c > 0 && height > 0 {
+		if d := 1/a - 2/height + 1/c; d > 0 {
+			return 2 * float64(k) * math.Sqrt(2/(height*d))
+		}
+	}
+	// Curvature of y itself: y'' = −2A/γ², FWHM = 2γ.
+	curv := (a - 2*y[i] + c) / float64(k*k)
 	if curv >= 0 {
 		return 2
 	}
