@@ -10,13 +10,14 @@ import (
 	"github.com/BurntSushi/toml"
 
 	"shiftwise/compare"
+	"shiftwise/smiles"
 )
 
 // Manifest is a batch of samples to check.
 type Manifest struct {
-	Title    string   `toml:"title"`
+	Title    string   `toml:"title,omitempty"`
 	Solvent  string   `toml:"solvent"`
-	FieldMHz float64  `toml:"field_mhz"`
+	FieldMHz float64  `toml:"field_mhz,omitzero"`
 	Samples  []Sample `toml:"sample"`
 
 	// Dir is the directory relative paths are resolved against (the
@@ -30,10 +31,10 @@ type Sample struct {
 	ID         string    `toml:"id"`
 	Spectrum   string    `toml:"spectrum"`
 	Smiles     string    `toml:"smiles"`
-	Candidates []string  `toml:"candidates"`
-	Impurities []string  `toml:"impurities"`
-	Solvent    string    `toml:"solvent"`
-	Standard   *Standard `toml:"standard"`
+	Candidates []string  `toml:"candidates,omitempty"`
+	Impurities []string  `toml:"impurities,omitempty"`
+	Solvent    string    `toml:"solvent,omitempty"`
+	Standard   *Standard `toml:"standard,omitempty"`
 
 	// Line is the manifest line of the sample's [[sample]] header, for
 	// messages; 0 when built in code.
@@ -46,7 +47,7 @@ type Standard struct {
 	MassMg        float64 `toml:"mass_mg"`
 	PurityPercent float64 `toml:"purity_percent"`
 	SampleMassMg  float64 `toml:"sample_mass_mg"`
-	SignalPPM     float64 `toml:"signal_ppm"`
+	SignalPPM     float64 `toml:"signal_ppm,omitzero"`
 }
 
 // Load reads a manifest file. A syntax error, an unknown key or a manifest
@@ -89,6 +90,10 @@ func Parse(text, name string) (*Manifest, error) {
 	if len(m.Samples) == 0 {
 		return nil, fmt.Errorf("%s: no [[sample]] entries", name)
 	}
+	if f := m.FieldMHz; f != 0 && !(f >= 1 && f <= 10000) {
+		return nil, fmt.Errorf("%s:%d: field_mhz must be the 1H observe frequency in MHz, between 1 and 10000 (or absent: from each file), found %v",
+			name, keyLine(text, toml.Key{"field_mhz"}), f)
+	}
 	lines := sampleLines(text)
 	for i := range m.Samples {
 		if i < len(lines) {
@@ -126,7 +131,7 @@ func keyLine(text string, k toml.Key) int {
 // error names the manifest line.
 func (m *Manifest) validate(i int, seen map[string]int) error {
 	s := &m.Samples[i]
-	at := fmt.Sprintf("%s:%d: sample %d", m.Path, s.Line, i+1)
+	at := m.where(i)
 	switch {
 	case strings.TrimSpace(s.ID) == "":
 		return fmt.Errorf("%s: missing id", at)
@@ -137,9 +142,45 @@ func (m *Manifest) validate(i int, seen map[string]int) error {
 	case strings.TrimSpace(s.Smiles) == "":
 		return fmt.Errorf("%s (%s): missing smiles", at, s.ID)
 	}
+	if err := s.checkSmiles(); err != nil {
+		return fmt.Errorf("%s (%s): %w", at, s.ID, err)
+	}
 	if st := s.Standard; st != nil {
 		if st.Smiles == "" || st.MassMg <= 0 || st.SampleMassMg <= 0 || st.PurityPercent <= 0 || st.PurityPercent > 100 {
 			return fmt.Errorf("%s (%s): standard needs smiles, mass_mg > 0, sample_mass_mg > 0 and 0 < purity_percent ≤ 100", at, s.ID)
+		}
+	}
+	return nil
+}
+
+// where names sample i for messages: "manifest.toml:12: sample 3".
+func (m *Manifest) where(i int) string {
+	if m.Path == "" {
+		return fmt.Sprintf("sample %d", i+1)
+	}
+	return fmt.Sprintf("%s:%d: sample %d", m.Path, m.Samples[i].Line, i+1)
+}
+
+// checkSmiles parses every structure of the sample, so that a typo in a
+// candidate or an impurity is an error row naming the field, not a
+// candidate silently ranked last or an impurity silently dropped.
+func (s *Sample) checkSmiles() error {
+	fields := []struct {
+		name string
+		smi  string
+	}{{"smiles", s.Smiles}}
+	for k, c := range s.Candidates {
+		fields = append(fields, struct{ name, smi string }{fmt.Sprintf("candidates[%d]", k+1), c})
+	}
+	for k, c := range s.Impurities {
+		fields = append(fields, struct{ name, smi string }{fmt.Sprintf("impurities[%d]", k+1), c})
+	}
+	if s.Standard != nil && s.Standard.Smiles != "" {
+		fields = append(fields, struct{ name, smi string }{"standard.smiles", s.Standard.Smiles})
+	}
+	for _, f := range fields {
+		if _, err := smiles.Parse(f.smi); err != nil {
+			return fmt.Errorf("%s %q: %w", f.name, f.smi, err)
 		}
 	}
 	return nil
