@@ -21,6 +21,10 @@ const (
 	sidebandMaxHz        = 50.0 // spinning rates of 20–40 Hz (common practice, no source)
 	sidebandMaxRat       = 0.03
 	mirrorTolHz          = 2.0
+	// A lone satellite (its mirror lost in noise or under other lines) is
+	// accepted when it is weak and its share is within a factor 2 of 0.55 %.
+	loneSatMinRat, loneSatMaxRat = 0.00275, 0.011
+	loneSatMaxSNR                = 15.0
 )
 
 // extraSpecies is a structure given by the user (impurity or internal
@@ -109,6 +113,7 @@ func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, 
 			expectH[j] += float64(sig[i].NH)
 		}
 	}
+	ex.absorbEdgeFragments(ms, field)
 	ex.findArtifacts(ms, field)
 	for j, o := range ex.owner {
 		if pre[j] == "" && o != "artifact" {
@@ -126,6 +131,41 @@ func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, 
 }
 
 func (ex *explanation) free(j int) bool { return ex.owner[j] == "" }
+
+// Edge fragments: processing may cut the wings of a broad second-order
+// multiplet (common at 60–90 MHz) into a small region of their own that
+// touches the compound's multiplet. Such a piece is part of the compound,
+// not an impurity.
+const (
+	edgeGapHz     = 2.0  // regions closer than this touch
+	edgeMaxShare  = 0.10 // a fragment holds at most this share of its host's area
+	edgeMinToHost = 3    // the host has at least this many peaks (a resolved pattern)
+)
+
+// absorbEdgeFragments gives to the compound every free, unlabelled multiplet
+// that is not a clean singlet, touches a multiplet owned by the compound and
+// holds at most edgeMaxShare of that multiplet's area. A clean singlet is
+// left alone: it may be a contaminant sitting next to the compound's lines.
+func (ex *explanation) absorbEdgeFragments(ms []mplet, field float64) {
+	if field <= 0 {
+		return
+	}
+	gap := edgeGapHz / field
+	for u := range ms {
+		if !ex.free(u) || ms[u].label != "" || ms[u].mult == "s" || len(ms[u].pk) < 2 {
+			continue
+		}
+		for h := range ms {
+			if ex.owner[h] != "compound" || len(ms[h].pk) < edgeMinToHost || ms[u].area > edgeMaxShare*ms[h].area {
+				continue
+			}
+			if math.Abs(ms[u].from-ms[h].to) <= gap || math.Abs(ms[h].from-ms[u].to) <= gap {
+				ex.owner[u] = "compound"
+				break
+			}
+		}
+	}
+}
 
 // findArtifacts marks unowned small multiplets that sit as 13C satellites
 // or as mirrored spinning sidebands of a much larger multiplet.
@@ -145,7 +185,7 @@ func (ex *explanation) findArtifacts(ms []mplet, field float64) {
 			}
 			off := math.Abs(ms[u].ppm-ms[p].ppm) * field
 			rat := ms[u].area / ms[p].area
-			if off >= satMinHz && off <= satMaxHz && rat >= satMinRat && rat <= satMaxRat && ex.mirrorOrCovered(ms, u, p, field) {
+			if off >= satMinHz && off <= satMaxHz && rat >= satMinRat && rat <= satMaxRat && (ex.mirrorOrCovered(ms, u, p, field) || loneSatellite(ms[u], rat)) {
 				if d := math.Abs(math.Log(rat / 0.0055)); d < bestDev {
 					best, bestDev, kind = p, d, "13C satellite"
 				}
@@ -163,6 +203,13 @@ func (ex *explanation) findArtifacts(ms []mplet, field float64) {
 				Percent: 100 * ms[u].area / ms[best].area, Multiplet: ms[u].idx})
 		}
 	}
+}
+
+// loneSatellite reports whether a multiplet with no mirror partner may still
+// be taken as a 13C satellite: weak (S/N known and below loneSatMaxSNR) and
+// close to the expected 0.55 % of its parent.
+func loneSatellite(m mplet, rat float64) bool {
+	return m.snr > 0 && m.snr < loneSatMaxSNR && rat >= loneSatMinRat && rat <= loneSatMaxRat
 }
 
 // mirrorOrCovered reports whether the other satellite of the pair is there:
