@@ -97,3 +97,13 @@ func TestDescribeNoEnvironments(t *testing.T) {
 		}
 	}
 }
+
+// TestVersionFlag: --version prints the version the reports record, so a
+// reviewer can match a report to the binary that wrote it (common practice
+// for validated lab software, no source).
+func TestVersionFlag(t *testing.T) {
+	code, out, errOut := qaRun("--version")
+	if code != exitOK || !strings.Contains(out, version) {
+		t.Errorf("exit %d, out %q, err %q; want the version %q", code, out, errOut, version)
+	}
+}

@@ -74,6 +74,7 @@ The automated result is advisory: release of material follows the lab's own
 procedures and qualified review.`,
 		SilenceUsage:  true,
 		SilenceErrors: true,
+		Version:       version, // --version: the same string the reports record
 	}
 	root.SetOut(f.Out)
 	root.SetErr(f.Err)
