@@ -28,8 +28,8 @@ const (
 	// report printed by the test); they guard against regressions.
 	realMinCentreRate   = 0.92 // 0.932 after the valley rule compared with the tallest line of the multiplet (from 0.913)
 	realMinRegionRate   = 0.98 // 1.000
-	realMinJRate        = 0.48 // 0.485 after the valley rule change (from 0.455 after strong sharp singlets were kept, dropNarrow; 0.47 before)
-	realMinIntegralRate = 0.64 // 0.662 after broad-line widths (topWidth) and the valley rule (from 0.603)
+	realMinJRate        = 0.49 // 0.500 with CHCl3 split from an aromatic triplet; 0.485 after the valley rule change (from 0.455 after strong sharp singlets were kept, dropNarrow; 0.47 before)
+	realMinIntegralRate = 0.66 // 0.684 with CHCl3 split off; 0.662 after broad-line widths (topWidth) and the valley rule (from 0.603)
 )
 
 // readTSV reads a tab-separated file with a header into maps.

@@ -119,6 +119,9 @@ func nearestLine(ls []line, x, tol float64) int {
 // group (the groups keep the lines before and after it), and the pattern's
 // group, marked residual, takes its place in ppm order.
 func splitResidual(gs []group, ls []line, sol Solvent, fieldMHz float64) []group {
+	if sol.Multiplicity == "s" {
+		return splitSinglet(gs, ls, sol, fieldMHz)
+	}
 	m, ok := findResidual(ls, sol, fieldMHz)
 	if !ok {
 		return gs
@@ -161,4 +164,52 @@ func splitResidual(gs []group, ls []line, sol Solvent, fieldMHz float64) []group
 	}
 	flush()
 	return out
+}
+
+// splitSinglet handles a singlet residual (CHCl3 in CDCl3, C6D5H, …) that
+// the distance rule put at the edge of a compound multiplet (CHCl3 7.26
+// beside an aromatic triplet less than JMaxHz away). The line nearest the
+// tabulated shift, within residualSpreadPPM, leaves its group when it is the
+// group's first or last line, the group is not first-order with it and is
+// first-order without it (at least two lines left): the residual is then
+// what spoiled the pattern. A lone line of a doublet or the edge of a
+// binomial multiplet never qualifies, since what remains is one line or an
+// unsymmetric pattern.
+func splitSinglet(gs []group, ls []line, sol Solvent, fieldMHz float64) []group {
+	li, bd := -1, residualSpreadPPM
+	for i, l := range ls {
+		if d := math.Abs(l.ppm - sol.ResidualPPM); l.artifact == "" && d <= bd {
+			li, bd = i, d
+		}
+	}
+	if li < 0 {
+		return gs
+	}
+	k := groupOf(gs, li)
+	if k < 0 {
+		return gs
+	}
+	g := gs[k].lines
+	if len(g) < 3 || (g[0] != li && g[len(g)-1] != li) {
+		return gs
+	}
+	whole := group{lines: g}
+	whole.analyze(ls, fieldMHz)
+	rest := group{lines: g[1:]}
+	if g[0] != li {
+		rest.lines = g[:len(g)-1]
+	}
+	rest.lines = append([]int(nil), rest.lines...)
+	rest.analyze(ls, fieldMHz)
+	if whole.multiplicity != "m" || rest.multiplicity == "m" {
+		return gs
+	}
+	res := group{lines: []int{li}, residual: true, residualPPM: ls[li].ppm}
+	out := append([]group(nil), gs[:k]...)
+	if g[0] == li {
+		out = append(out, res, group{lines: rest.lines})
+	} else {
+		out = append(out, group{lines: rest.lines}, res)
+	}
+	return append(out, gs[k+1:]...)
 }

@@ -148,3 +148,51 @@ func TestBroadLineWidth(t *testing.T) {
 		}
 	}
 }
+
+// TestCHCl3BesideTriplet: the CHCl3 singlet of CDCl3 (7.26 ppm, Fulmer et
+// al. 2010, value from memory) 15 Hz below an aromatic triplet joins it by
+// distance; it must come out as the solvent singlet and leave a clean
+// triplet (cheminfo 620-71-3: CHCl3 7.288 beside the t at 7.338). A compound
+// doublet with a line near 7.26 must not be broken up.
+func TestCHCl3BesideTriplet(t *testing.T) {
+	t.Parallel()
+	const field = 400.13
+	s := noisyAxis(field, 0, 10, 65536, 41)
+	s.Solvent = "CDCl3"
+	addLorentz(s, 7.262, 800, 0.8)
+	j := 7.6 / field
+	for k, w := range []float64{1, 2, 1} {
+		addLorentz(s, 7.262+(15+7.6)/field+float64(k-1)*j, 600*w, 1.0)
+	}
+	addLorentz(s, 2.1, 3000, 1.0)
+	pl, err := Process(s, ProcessOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	tr := multipletAt(pl, 7.262+22.6/field)
+	sol := multipletAt(pl, 7.262)
+	if tr == nil || tr.Multiplicity != "t" || tr.Peaks != 3 {
+		t.Errorf("triplet: %+v, want t of 3 peaks", tr)
+	}
+	if sol == nil || sol.Label != LabelSolvent || sol.Peaks != 1 {
+		t.Errorf("CHCl3: %+v, want a solvent singlet", sol)
+	}
+
+	// A doublet whose lower line is at 7.27: no CHCl3 there.
+	d := noisyAxis(field, 0, 10, 65536, 43)
+	d.Solvent = "CDCl3"
+	for _, x := range []float64{7.27, 7.27 + 8.0/field} {
+		addLorentz(d, x, 900, 1.0)
+	}
+	addLorentz(d, 7.27+26.0/field, 300, 1.0) // a weak line 18 Hz above
+	addLorentz(d, 2.1, 3000, 1.0)
+	pl, err = Process(d, ProcessOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, m := range pl.Multiplets {
+		if m.Label == LabelSolvent {
+			t.Errorf("a compound line taken for CHCl3: %+v", m)
+		}
+	}
+}
