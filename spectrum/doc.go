@@ -109,9 +109,10 @@
 //     multiplet so far differ by less than a factor of 30. When the solvent
 //     is known, the residual quintet of a CD3 solvent (1:2:3:2:1, J(HD)
 //     about 2 Hz) or the 1:1:1 triplet of CD2Cl2 is found among the lines
-//     grouped with it and given a multiplet of its own (residual.go). Each
-//     multiplet
-//     gets a first-order analysis after Hoye, Hanson & Vyvyan 1994:
+//     grouped with it and given a multiplet of its own (residual.go); a
+//     singlet residual (CHCl3) at the edge of a compound multiplet leaves
+//     it when the rest is first-order only without it. Each multiplet gets
+//     a first-order analysis after Hoye, Hanson & Vyvyan 1994:
 //     symmetric positions and intensities (within roofing), intensities in
 //     whole units of an outer line summing to a power of two, couplings
 //     peeled one at a time; retried without the weakest lines and on
