@@ -22,7 +22,7 @@ var (
 	inkColor       = color.RGBA{R: 0x22, G: 0x22, B: 0x2b, A: 0xff}
 	predColor      = color.RGBA{R: 0x3d, G: 0x5a, B: 0x98, A: 0xff}
 	flagColor      = color.RGBA{R: 0xc2, G: 0x5b, B: 0x12, A: 0xff}
-	maxPlotPoints  = 1600 // min/max decimation keeps SVGs small whatever the trace length
+	maxPlotPoints  = 1200 // min/max decimation keeps SVGs small whatever the trace length
 	overviewWidth  = 26 * vg.Centimeter
 	overviewHeight = 11 * vg.Centimeter
 	zoomWidth      = 6.2 * vg.Centimeter
@@ -309,7 +309,7 @@ func zoomSVG(r *compare.Result, a compare.Assignment) (string, error) {
 		if top <= 0 {
 			top = 1
 		}
-		if err := addLine(p, decimate(r.Trace.PPM, r.Trace.Y, w, 600), inkColor, 0.7); err != nil {
+		if err := addLine(p, decimate(r.Trace.PPM, r.Trace.Y, w, 320), inkColor, 0.7); err != nil {
 			return "", err
 		}
 	}
@@ -337,7 +337,7 @@ func addPredictedSignal(p *plot.Plot, r *compare.Result, a compare.Assignment, w
 	if len(sub.Lines) == 0 {
 		return nil
 	}
-	x, y := predict.Render(sub, w.From, w.To, 1200, 1.0)
+	x, y := predict.Render(sub, w.From, w.To, 480, 1.0)
 	m := 0.0
 	for _, v := range y {
 		m = math.Max(m, v)
