@@ -42,6 +42,12 @@ func toFluorine(m *graph.Mol, p graph.Proton, path []int) J {
 		if hyb(m, c) == 2 {
 			return hf2sp2.j(2)
 		}
+		switch countNeighbors(m, c, "F") {
+		case 2:
+			return hf2CF2.j(2)
+		case 3:
+			return hf2CF3.j(2)
+		}
 		return hf2sp3.j(2)
 	case 3:
 		return hf3(m, p, path)

@@ -170,11 +170,13 @@ var (
 	lrCHOAllylic = rule{"4J aldehyde H-C(O)-C=C-H", 0.5, 0, 1.5}
 )
 
-// 1H–19F couplings (Pretsch; value from memory: CH2F ²J 47, vinyl fluoride
-// ²J 85, ³J trans 52 / cis 20, fluoroethane ³J 25, CF3CH2 ³J 8–9,
-// fluorobenzene ortho 9.1, meta 5.7, para 0.2).
+// 1H–19F couplings (Pretsch; value from memory: CH2F ²J 47, CHF2 ²J 50–57,
+// CHF3 ²J 79.7, vinyl fluoride ²J 85, ³J trans 52 / cis 20, fluoroethane
+// ³J 25, CF3CH2 ³J 8–9, fluorobenzene ortho 9.1, meta 5.7, para 0.2).
 var (
 	hf2sp3     = rule{"2J H-C-F", 47, 44, 58}
+	hf2CF2     = rule{"2J H-CF2", 56, 49, 60} // CH2F2 50, ArCHF2 56, RCHF2 56–57
+	hf2CF3     = rule{"2J H-CF3", 79, 76, 82} // fluoroform 79.7
 	hf2sp2     = rule{"2J H-C(sp2)-F", 81, 70, 90}
 	hf3CF      = rule{"3J H-C-C-F (CHF, CH2F)", 22, 12, 30}
 	hf3CF2     = rule{"3J H-C-C-F2", 15, 10, 22}
