@@ -37,4 +37,3 @@ func TestGeminalHFByFluorineCount(t *testing.T) {
 		}
 	}
 }
-
