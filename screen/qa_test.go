@@ -2,7 +2,9 @@ package screen
 
 import (
 	"errors"
+	"runtime"
 	"strings"
+	"sync/atomic"
 	"testing"
 
 	"shiftwise/compare"
@@ -108,5 +110,26 @@ func TestManifestField(t *testing.T) {
 		if _, err := Parse("field_mhz = "+v+"\n"+body, "m.toml"); err != nil {
 			t.Errorf("field_mhz = %s: %v", v, err)
 		}
+	}
+}
+
+// TestJobsCapped: a --jobs far above the number of samples starts no idle
+// workers (each idle goroutine still costs a stack); 2 samples need at most
+// 2 workers whatever the flag says.
+func TestJobsCapped(t *testing.T) {
+	m := &Manifest{Path: "m.toml", Samples: []Sample{
+		{ID: "a", Spectrum: "a.jdx", Smiles: "C"}, {ID: "b", Spectrum: "b.jdx", Smiles: "C"}}}
+	var peak atomic.Int64
+	check := func(compare.Input, compare.Options) (*compare.Result, error) {
+		if n := int64(runtime.NumGoroutine()); n > peak.Load() {
+			peak.Store(n)
+		}
+		return &compare.Result{Verdict: compare.Consistent, Score: 1}, nil
+	}
+	if _, err := Run(m, Options{Check: check, Jobs: 20000}); err != nil {
+		t.Fatal(err)
+	}
+	if p := peak.Load(); p > 100 {
+		t.Errorf("%d goroutines while checking 2 samples", p)
 	}
 }

@@ -57,6 +57,7 @@ func Run(m *Manifest, opt Options) (*Summary, error) {
 	if opt.Jobs <= 0 {
 		opt.Jobs = runtime.NumCPU()
 	}
+	opt.Jobs = min(opt.Jobs, len(m.Samples)) // --jobs 100000 starts no idle workers
 	if opt.Check == nil {
 		opt.Check = compare.Check
 	}
