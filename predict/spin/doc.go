@@ -67,6 +67,13 @@
 // than exhausting memory. Composite particles make clusters of CH3 and CH2
 // groups much cheaper than their number of nuclei suggests.
 //
+// Blocks are diagonalised in waves of GOMAXPROCS blocks, and the lines
+// between adjacent blocks computed as soon as both are known, so at most
+// GOMAXPROCS+1 blocks' eigenvectors are held at once (for 12 spins on two
+// cores, three matrices of at most 924² values, about 20 MB); the line list
+// itself, tens to hundreds of thousands of lines for 10–12 strongly coupled
+// spins, is usually the larger part of the memory.
+//
 // Exact transitions weaker than MinLine (1e-6 of one nucleus) are not
 // listed; their total is Result.Dropped, so that the lines plus Dropped obey
 // the sum rule. Lines closer than 0.001 Hz are merged.
