@@ -107,3 +107,34 @@ func TestVersionFlag(t *testing.T) {
 		t.Errorf("exit %d, out %q, err %q; want the version %q", code, out, errOut, version)
 	}
 }
+
+// TestSimulateNoProtonsAndOut: a spin file with no 1H group says so instead of an
+// empty answer, and --out goes through the atomic writer like the other
+// commands: a missing directory is an error naming it, and no temporary
+// file is left beside a written trace.
+func TestSimulateNoProtonsAndOut(t *testing.T) {
+	dir := t.TempDir()
+	f19 := filepath.Join(dir, "f.toml")
+	if err := os.WriteFile(f19, []byte("[[group]]\nname = \"f\"\nshift_ppm = -120\nnucleus = \"19F\"\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if code, _, errOut := qaRun("simulate", f19); code != exitOK || !strings.Contains(errOut, "no 1H group") {
+		t.Errorf("19F only: exit %d, stderr %q; want 0 and a note", code, errOut)
+	}
+	spins := "../../testdata/spins/ab.toml"
+	missing := filepath.Join(dir, "no", "ab.csv")
+	if code, _, errOut := qaRun("simulate", spins, "--out", missing); code != exitError || !strings.Contains(errOut, "does not exist") {
+		t.Errorf("missing dir: exit %d, stderr %q", code, errOut)
+	}
+	for _, name := range []string{"ab.csv", "ab.svg"} {
+		if code, _, errOut := qaRun("simulate", spins, "--out", filepath.Join(dir, name)); code != exitOK {
+			t.Fatalf("%s: exit %d: %s", name, code, errOut)
+		}
+	}
+	ents, _ := os.ReadDir(dir)
+	for _, e := range ents {
+		if strings.Contains(e.Name(), ".tmp-") {
+			t.Errorf("temporary file %s left behind", e.Name())
+		}
+	}
+}

@@ -6,7 +6,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"strings"
 	"text/tabwriter"
@@ -16,6 +15,7 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 
+	"shiftwise/internal/atomicfile"
 	"shiftwise/predict/spin"
 )
 
@@ -147,6 +147,9 @@ func runSimulate(f *Factory, o *simulateOptions) error {
 		return withCode(exitError, fmt.Errorf("%s: %w", o.file, err))
 	}
 	out := simulateResult(sf, res, field)
+	if len(out.Lines) == 0 {
+		fmt.Fprintf(f.Err, "shiftwise: note: %s has no 1H group: no lines to show (19F and 31P only split 1H lines)\n", o.file)
+	}
 	if o.out != "" {
 		if err := writeSimTrace(o.out, sf.Name, res, field, simFirst(sf.LineWidthHz, simDefaultWidth)); err != nil {
 			return withCode(exitError, err)
@@ -226,7 +229,7 @@ func writeSimTrace(path, title string, res *spin.Result, field, width float64) e
 	for i := range ppm {
 		fmt.Fprintf(&b, "%.6f,%.6g\n", ppm[i], y[i])
 	}
-	return os.WriteFile(path, []byte(b.String()), 0o644)
+	return atomicfile.WriteBytes(path, []byte(b.String()), 0o644)
 }
 
 func plotSimTrace(path, title string, ppm, y []float64) error {
@@ -244,5 +247,9 @@ func plotSimTrace(path, title string, ppm, y []float64) error {
 		return err
 	}
 	p.Add(l)
-	return p.Save(20*vg.Centimeter, 10*vg.Centimeter, path)
+	wt, err := p.WriterTo(20*vg.Centimeter, 10*vg.Centimeter, strings.TrimPrefix(strings.ToLower(filepath.Ext(path)), "."))
+	if err != nil {
+		return err
+	}
+	return atomicfile.Write(path, 0o644, func(w io.Writer) error { _, err := wt.WriteTo(w); return err })
 }
