@@ -147,12 +147,19 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 	}
 	b := newBasis(spins)
 	nb := len(b.blocks)
-	width := max(1, min(runtime.GOMAXPROCS(0), nb))
 	eig := make([]eigen, nb)
 	errs := make([]error, nb)
 	parts := make([]sink, nb-1)
-	for lo := 0; lo < nb; lo += width {
-		hi := min(lo+width, nb)
+	// With a mirror symmetry only blocks 0 … nb/2 are needed: pair b and
+	// pair nb−2−b are images of each other.
+	perm, nu0, sym := mirror(spins, jm)
+	use := nb
+	if sym {
+		use = nb/2 + 1
+	}
+	width := max(1, min(runtime.GOMAXPROCS(0), use))
+	for lo := 0; lo < use; lo += width {
+		hi := min(lo+width, use)
 		parallel(hi-lo, func(k int) { eig[lo+k], errs[lo+k] = b.diagonalise(lo+k, jm) })
 		if err := errors.Join(errs[lo:hi]...); err != nil {
 			return err
@@ -166,6 +173,17 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 		})
 		for blk := first; blk < hi-1; blk++ {
 			eig[blk] = eigen{}
+		}
+	}
+	if sym {
+		egMap := map[int]int{}
+		for k, p := range perm {
+			egMap[dst.eg[spins[k].grp]] = dst.eg[spins[p].grp]
+		}
+		for blk := 0; blk < nb-2-blk; blk++ {
+			m := &parts[nb-2-blk]
+			*m = sink{scale: dst.scale, eg: dst.eg}
+			mirrorLines(m, &parts[blk], nu0, egMap)
 		}
 	}
 	total := 0
