@@ -25,7 +25,7 @@ import (
 // region sum (it is meant for tails, not for separating overlapping signals).
 //
 // Relative integrals: the well-resolved multiplets (first-order, not the
-// solvent or the reference, at least minResolvedFrac of the largest
+// solvent, the reference or a water singlet, at least minResolvedFrac of the largest
 // multiplet) are scaled so that the smallest of them is a
 // whole number n of protons, n being the smallest of 1…4 for which all of
 // them come out near whole numbers (mean distance ≤ 0.12); with no such n,
@@ -222,6 +222,25 @@ func integrateTable(gs []group, ls []line) {
 	}
 }
 
+// waterWindowPPM: dissolved water moves with temperature and
+// concentration by about a tenth of a ppm (Gottlieb et al. 1997, caveat;
+// the size is our judgement).
+const waterWindowPPM = 0.1
+
+// markWater marks the singlets within waterWindowPPM of the solvent's water
+// shift (Fulmer et al. 2010, see solvents.go) on the referenced axis (shift
+// added to the groups' ppm). Water's size says nothing about the compound,
+// so it must not set the integral unit: in DMSO-d6 a water singlet smaller
+// than the compound's 2H signals made them 3H (cheminfo 57946-61-9).
+func markWater(gs []group, sol Solvent, shift float64) {
+	for k := range gs {
+		g := &gs[k]
+		if g.label == "" && len(g.lines) == 1 && math.Abs(g.centerPPM+shift-sol.WaterPPM) <= waterWindowPPM {
+			g.water = true
+		}
+	}
+}
+
 // scaleIntegrals returns the factor that turns raw areas into proton counts.
 func scaleIntegrals(gs []group, ref *IntegralRef) (float64, error) {
 	if ref != nil {
@@ -236,7 +255,7 @@ func scaleIntegrals(gs []group, ref *IntegralRef) (float64, error) {
 	floor := minResolvedFrac * largest
 	var resolved []float64
 	for _, g := range gs {
-		if g.label == "" && g.multiplicity != "m" && g.raw > 0 && g.raw >= floor {
+		if g.label == "" && !g.water && g.multiplicity != "m" && g.raw > 0 && g.raw >= floor {
 			resolved = append(resolved, g.raw)
 		}
 	}

@@ -73,6 +73,9 @@ type group struct {
 	// centred on the line at residualPPM.
 	residual    bool
 	residualPPM float64
+	// water marks a singlet at the solvent's water shift (markWater); it
+	// is not a candidate for the integral unit.
+	water bool
 }
 
 // groupLines partitions the non-artifact lines (ascending ppm) into

@@ -259,6 +259,9 @@ func (p *processed) heightAt(x float64) float64 {
 // finish references, scales the integrals and builds the PeakList.
 func (p *processed) finish(c *config) (*PeakList, error) {
 	ref := reference(p.groups, p.lines, c.solvent, c.haveSol, c.Reference, c.field)
+	if c.haveSol {
+		markWater(p.groups, c.solvent, ref.shift)
+	}
 	scale, err := scaleIntegrals(p.groups, shiftedRef(c.IntegralRef, ref.shift))
 	if err != nil {
 		return nil, err

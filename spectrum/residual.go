@@ -22,7 +22,9 @@ import (
 // 0.35·J when larger) whose heights are between residualInnerMin and
 // residualInnerMax of it and agree with each other within a factor of 2;
 // for the quintet at least one outer line at ±2J between residualOuterMin
-// and residualOuterMax of the centre. The ranges are wide because lines 2 Hz
+// and residualOuterMax of the centre, or else inner lines that are tall and
+// wide enough to hold the unresolved outer ones (residualShoulderMin,
+// residualShoulderWidth). The ranges are wide because lines 2 Hz
 // apart overlap and lend each other height (our judgement; the ideal ratios
 // are 2/3 and 1/3 from the deuterium multiplicity, common practice, no
 // source).
@@ -33,6 +35,13 @@ const (
 	residualInnerMax = 1.05
 	residualOuterMin = 0.08
 	residualOuterMax = 0.8
+	// residualShoulderMin and residualShoulderWidth: a quintet whose outer
+	// lines are not picked still counts when its inner lines reach this
+	// fraction of the centre (a 1:2:1 triplet: 0.5) and are this much wider
+	// than the centre line (the unresolved outer lines sit in their flanks;
+	// cheminfo 492-62-6 and 57946-61-9, DMSO-d6: 0.72–0.80 and 1.4–1.9×).
+	residualShoulderMin   = 0.6
+	residualShoulderWidth = 1.2
 	// residualTripletMin/Max bound the side lines of the 1:1:1 triplet.
 	residualTripletMin = 0.5
 	residualTripletMax = 1.6
@@ -98,7 +107,14 @@ func matchResidual(ls []line, c int, j, tol float64, mult string) (residualMatch
 			m.lo, m.hi = min(m.lo, k), max(m.hi, k)
 		}
 	}
-	return m, outer > 0
+	if outer > 0 {
+		return m, true
+	}
+	// Outer lines unresolved: they broaden the inner ones, which then stand
+	// taller and wider than the side lines of a 1:2:1 triplet would.
+	wc := ls[c].widthHz
+	wide := wc > 0 && ls[lo].widthHz >= residualShoulderWidth*wc && ls[hi].widthHz >= residualShoulderWidth*wc
+	return m, wide && math.Min(hl, hh) >= residualShoulderMin
 }
 
 // nearestLine is the index of the non-artifact line nearest x within tol

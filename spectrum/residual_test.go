@@ -233,3 +233,59 @@ func TestSatellitesHighField(t *testing.T) {
 		}
 	}
 }
+
+// TestWaterNotIntegralUnit: a water singlet (DMSO-d6: 3.33 ppm, Fulmer et
+// al. 2010, value from memory) of 0.6 H must not set the integral unit; the
+// compound's q (2 H) and t (3 H) must come out as 2 and 3 (first-order
+// Lorentzian lines, common practice, no source).
+func TestWaterNotIntegralUnit(t *testing.T) {
+	t.Parallel()
+	const field = 400.13
+	sig := []synthSignal{
+		{ppm: 1.05, nH: 3, js: []float64{7.2, 7.2}},
+		{ppm: 3.33, nH: 0.6},
+		{ppm: 4.05, nH: 2, js: []float64{7.2, 7.2, 7.2}},
+	}
+	s := synthTrace(sig, field, -1, 11, 65536, 1.0, 300, 61)
+	s.Solvent = "DMSO-d6"
+	pl, err := Process(s, ProcessOptions{Reference: RefNone})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, sg := range []synthSignal{sig[0], sig[2]} {
+		m := multipletAt(pl, sg.ppm)
+		if m == nil || math.Abs(m.Integral-sg.nH) > 0.03*sg.nH {
+			t.Errorf("%.2f ppm: %+v, want integral %g", sg.ppm, m, sg.nH)
+		}
+	}
+}
+
+// TestResidualQuintetUnresolved: with lines broader than J(HD) the outer
+// lines of the DMSO-d6 quintet are not picked (cheminfo 492-62-6 and
+// 57946-61-9 show three lines); the residual must still be labelled, and a
+// compound 1:2:1 triplet with the same spacing elsewhere must not be.
+func TestResidualQuintetUnresolved(t *testing.T) {
+	t.Parallel()
+	const field = 600.2
+	sol, _ := LookupSolvent("DMSO-d6")
+	s := noisyAxis(field, 0, 10, 65536, 71)
+	s.Solvent = "DMSO-d6"
+	j := sol.JHDHz / field
+	for k, w := range []float64{1, 2, 3, 2, 1} {
+		addLorentz(s, sol.ResidualPPM+float64(k-2)*j, 3000*w, 2.2)
+	}
+	for k, w := range []float64{1, 2, 1} { // compound triplet at 2.62
+		addLorentz(s, 2.62+float64(k-1)*j, 3000*w, 1.0)
+	}
+	pl, err := Process(s, ProcessOptions{Reference: RefNone})
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, tr := multipletAt(pl, sol.ResidualPPM), multipletAt(pl, 2.62)
+	if res == nil || res.Label != LabelSolvent {
+		t.Errorf("DMSO residual: %+v, want labelled solvent", res)
+	}
+	if tr == nil || tr.Label != "" {
+		t.Errorf("compound triplet: %+v, want unlabelled", tr)
+	}
+}
