@@ -137,7 +137,8 @@
 //     PeakList.ReferencePPM is the shift applied.
 //
 // Relative integrals: with no ProcessOptions.IntegralRef, the unlabelled
-// first-order multiplets of at least 1/16 of the largest area (all
+// first-order multiplets of at least 1/16 of the largest area, except a
+// singlet within 0.1 ppm of the solvent's water shift (all
 // unlabelled ones of that size when none is first-order) are scaled so
 // that the smallest is n protons, n being the smallest of 1…4 for which
 // all of them come out within a mean 0.12 of whole numbers (n = 1 when none
