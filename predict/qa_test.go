@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"shiftwise/predict/spin"
+	"shiftwise/smiles"
 )
 
 // TestLoneEquivalentGroup: a set of equivalent protons that couples to no
@@ -86,5 +87,23 @@ func TestEmptyPredictionSaysWhy(t *testing.T) {
 	}
 	if p := mustPredict(t, "CCO", Options{}); len(p.Warnings) != 0 {
 		t.Errorf("ethanol: warnings %q", p.Warnings)
+	}
+}
+
+// BenchmarkPredictLongChain: a 600-carbon chain (1202 protons). Memory
+// should grow with the number of coupled pairs, not with protons squared:
+// the H–H coupling table was a dense n×n array of jrules.J (about 80 MB
+// here; GBs for a few thousand atoms) and is now sparse.
+func BenchmarkPredictLongChain(b *testing.B) {
+	smi := strings.Repeat("C", 600)
+	m, err := smiles.Parse(smi)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Predict(m, smi, Options{}); err != nil {
+			b.Fatal(err)
+		}
 	}
 }

@@ -52,8 +52,8 @@ type system struct {
 	protons  []graph.Proton
 	envOf    []int
 	hetero   []heteroNucleus
-	jhh      []jrules.J // n×n, NBonds 0 where absent
-	jhx      []jrules.J // n×len(hetero)
+	jhh      map[[2]int]jrules.J // by proton index pair, both orders; absent: no coupling
+	jhx      []jrules.J          // n×len(hetero)
 	warnings []string
 }
 
@@ -165,7 +165,7 @@ func (s *system) findHetero() {
 // bonds apart, and every H–F/H–P coupling.
 func (s *system) couple(opt Options) {
 	n := len(s.protons)
-	s.jhh = make([]jrules.J, n*n)
+	s.jhh = map[[2]int]jrules.J{} // sparse: a dense n×n table took GBs for long chains
 	near := s.nearAtoms(3)
 	// The coupling depends on the protons' indices only across a C=C
 	// (cis/trans); elsewhere one estimate serves every pair of two atoms.
@@ -189,7 +189,7 @@ func (s *system) couple(opt Options) {
 				}
 			}
 			if c.ok {
-				s.jhh[i*n+k], s.jhh[k*n+i] = c.j, c.j
+				s.jhh[[2]int{i, k}], s.jhh[[2]int{k, i}] = c.j, c.j
 			}
 		}
 	}
@@ -240,7 +240,7 @@ func (s *system) nearAtoms(maxDist int) []bool {
 }
 
 // jh returns the H–H coupling between proton indices i and k.
-func (s *system) jh(i, k int) jrules.J { return s.jhh[i*len(s.protons)+k] }
+func (s *system) jh(i, k int) jrules.J { return s.jhh[[2]int{i, k}] }
 
 // jx returns the coupling between proton i and heteronucleus h.
 func (s *system) jx(i, h int) jrules.J { return s.jhx[i*len(s.hetero)+h] }
