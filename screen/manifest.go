@@ -6,6 +6,7 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+	"unicode"
 
 	"github.com/BurntSushi/toml"
 
@@ -135,6 +136,8 @@ func (m *Manifest) validate(i int, seen map[string]int) error {
 	switch {
 	case strings.TrimSpace(s.ID) == "":
 		return fmt.Errorf("%s: missing id", at)
+	case strings.ContainsFunc(s.ID, unicode.IsControl):
+		return fmt.Errorf("%s: id %q contains a tab, newline or other control character", at, s.ID)
 	case seen[s.ID] > 0:
 		return fmt.Errorf("%s: id %q already used by sample %d", at, s.ID, seen[s.ID])
 	case strings.TrimSpace(s.Spectrum) == "":

@@ -133,3 +133,28 @@ func TestJobsCapped(t *testing.T) {
 		t.Errorf("%d goroutines while checking 2 samples", p)
 	}
 }
+
+// TestIDControlCharacters: a sample id is a row key in the tab-separated
+// output and a file name; a tab or newline in it (a TOML "\t" or "\n"
+// escape) would split the row, so it is an error row naming the line.
+func TestIDControlCharacters(t *testing.T) {
+	m, err := Parse("[[sample]]\nid = \"a\\tb\\nc\"\nspectrum = \"a.jdx\"\nsmiles = \"C\"\n[[sample]]\nid = \"ok\"\nspectrum = \"a.jdx\"\nsmiles = \"C\"\n", "m.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	m.Path = "m.toml"
+	check := func(compare.Input, compare.Options) (*compare.Result, error) {
+		return &compare.Result{Verdict: compare.Consistent, Score: 1}, nil
+	}
+	sum, err := Run(m, Options{Check: check, Jobs: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r := sum.Rows[0]; !strings.HasPrefix(r.Error, "m.toml:1: sample 1: id") || !strings.Contains(r.Error, "control character") ||
+		strings.ContainsAny(r.ID+r.Error, "\t\n") {
+		t.Errorf("row 0: %+v", r)
+	}
+	if r := sum.Rows[1]; r.Error != "" {
+		t.Errorf("row 1: %+v", r)
+	}
+}

@@ -13,6 +13,7 @@ import (
 	"strings"
 	"sync"
 	"time"
+	"unicode"
 
 	"shiftwise/compare"
 	"shiftwise/internal/atomicfile"
@@ -123,6 +124,9 @@ func runOne(m *Manifest, i int, invalid error, file string, opt Options) (row Ro
 	row = Row{ID: s.ID}
 	if row.ID == "" {
 		row.ID = fmt.Sprintf("sample-%d", i+1)
+	}
+	if strings.ContainsFunc(row.ID, unicode.IsControl) {
+		row.ID = strconv.Quote(row.ID) // keeps tab-separated rows whole
 	}
 	defer func() {
 		if p := recover(); p != nil {
