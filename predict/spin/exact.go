@@ -166,7 +166,7 @@ func (es *esys) exactLines(c []int, xs []int) ([]rawLine, float64, error) {
 			return transitions(spins, jm, dst)
 		})
 	})
-	return dst.out, dst.dropped, err
+	return dst.all(), dst.dropped, err
 }
 
 // configs calls fn for every spin configuration of the partner groups xs:

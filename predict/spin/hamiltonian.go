@@ -127,12 +127,29 @@ func (b *basis) diagonalise(blk int, jm [][]float64) (eigen, error) {
 // scale and cluster-local group k is reported as eg[k].
 type sink struct {
 	out     []rawLine
+	chunks  [][]rawLine // lines added by transitions, joined by all
 	scale   float64
 	eg      []int
 	dropped float64 // intensity of transitions weaker than MinLine
 }
 
-// transitions appends the lines of spins to dst (raw intensities, which sum
+// all returns the lines of out and of all chunks in one slice.
+func (s *sink) all() []rawLine {
+	n := len(s.out)
+	for _, c := range s.chunks {
+		n += len(c)
+	}
+	if n == len(s.out) {
+		return s.out
+	}
+	out := make([]rawLine, 0, n)
+	for _, c := range s.chunks {
+		out = append(out, c...)
+	}
+	return append(out, s.out...)
+}
+
+// transitions adds the lines of spins to dst (as chunks; raw intensities, which sum
 // to Tr(F+F−) over the product basis, times dst.scale). Blocks are
 // diagonalised, and the lines between neighbouring blocks computed, on up to
 // GOMAXPROCS goroutines; the result does not depend on their number.
@@ -186,18 +203,11 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 			mirrorLines(m, &parts[blk], nu0, egMap)
 		}
 	}
-	total := 0
-	for _, p := range parts {
-		total += len(p.out)
-	}
-	if cap(dst.out)-len(dst.out) < total {
-		// At least double, so that many small calls stay linear.
-		dst.out = slices.Grow(dst.out, max(total, len(dst.out)))
-	}
 	for i := range parts {
-		dst.out = append(dst.out, parts[i].out...)
+		if len(parts[i].out) > 0 {
+			dst.chunks = append(dst.chunks, parts[i].out)
+		}
 		dst.dropped += parts[i].dropped
-		parts[i].out = nil
 	}
 	return nil
 }
