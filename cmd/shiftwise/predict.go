@@ -267,13 +267,22 @@ func predictPlot(path string, p *predict.Prediction, s *spectrum.Spectrum) error
 	return atomicfile.Write(path, 0o644, func(w io.Writer) error { _, err := wt.WriteTo(w); return err })
 }
 
-// predictLabels places each signal's label above its highest point.
+// predictLabels places each signal's label above its highest point: the
+// highest over the span of the signal's own lines (a wide multiplet at a
+// low field has a valley at its centre, where the label used to sit on top
+// of the inner lines).
 func predictLabels(p *predict.Prediction, s *spectrum.Spectrum, top float64) (*plotter.Labels, error) {
 	var d plotter.XYLabels
 	for _, sig := range p.Signals {
+		lo, hi := sig.ShiftPPM-0.05, sig.ShiftPPM+0.05
+		for _, l := range p.Lines {
+			if l.Signal == sig.Label {
+				lo, hi = math.Min(lo, l.PPM-0.01), math.Max(hi, l.PPM+0.01)
+			}
+		}
 		h := 0.0
 		for i, x := range s.PPM {
-			if math.Abs(x-sig.ShiftPPM) < 0.05 {
+			if x >= lo && x <= hi {
 				h = math.Max(h, s.Y[i])
 			}
 		}

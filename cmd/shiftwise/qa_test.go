@@ -3,10 +3,14 @@ package main
 import (
 	"bytes"
 	"fmt"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"shiftwise/predict"
+	"shiftwise/smiles"
 )
 
 // qaRun runs the command line args and returns the exit code and streams.
@@ -135,6 +139,46 @@ func TestSimulateNoProtonsAndOut(t *testing.T) {
 	for _, e := range ents {
 		if strings.Contains(e.Name(), ".tmp-") {
 			t.Errorf("temporary file %s left behind", e.Name())
+		}
+	}
+}
+
+// TestPredictLabelsAboveMultiplet: at 60 MHz the ethyl acetate CH2 quartet
+// (J 7.1 Hz) spans 0.36 ppm with a valley at its centre; its label must
+// sit above the quartet's tallest line, not in the valley between the
+// inner lines (Pascal's triangle 1:3:3:1, so the inner lines are tallest).
+func TestPredictLabelsAboveMultiplet(t *testing.T) {
+	m, err := smiles.Parse("CCOC(C)=O")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := predict.Predict(m, "CCOC(C)=O", predict.Options{FieldMHz: 60})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := predictTrace(p)
+	top := 0.0
+	for _, y := range s.Y {
+		top = math.Max(top, y)
+	}
+	lb, err := predictLabels(p, s, top)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, sig := range p.Signals {
+		tallest := 0.0
+		for _, l := range p.Lines {
+			if l.Signal != sig.Label {
+				continue
+			}
+			for i, x := range s.PPM {
+				if math.Abs(x-l.PPM) < 0.002 {
+					tallest = math.Max(tallest, s.Y[i])
+				}
+			}
+		}
+		if y := lb.XYs[k].Y; y < tallest {
+			t.Errorf("signal %s: label at %.1f, below its tallest line %.1f", sig.Label, y, tallest)
 		}
 	}
 }
