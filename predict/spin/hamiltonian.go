@@ -177,7 +177,13 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 	width := max(1, min(runtime.GOMAXPROCS(0), use))
 	for lo := 0; lo < use; lo += width {
 		hi := min(lo+width, use)
-		parallel(hi-lo, func(k int) { eig[lo+k], errs[lo+k] = b.diagonalise(lo+k, jm) })
+		parallel(hi-lo, func(k int) {
+			if blk := lo + k; sym && nb%2 == 1 && blk == nb/2 {
+				eig[blk], errs[blk] = b.diagonaliseMirror(blk, jm, perm)
+			} else {
+				eig[blk], errs[blk] = b.diagonalise(blk, jm)
+			}
+		})
 		if err := errors.Join(errs[lo:hi]...); err != nil {
 			return err
 		}

@@ -4,6 +4,8 @@ import (
 	"cmp"
 	"math"
 	"slices"
+
+	"gonum.org/v1/gonum/mat"
 )
 
 // Mirror symmetry. If a permutation π of the spins (an involution) keeps
@@ -66,4 +68,80 @@ func mirrorLines(dst, src *sink, nu0 float64, egMap map[int]int) {
 		dst.out = append(dst.out, rawLine{hz: 2*nu0 - l.hz, inten: l.inten, eg: egMap[l.eg]})
 	}
 	dst.dropped += src.dropped
+}
+
+// diagonaliseMirror diagonalises the middle block blk, which R maps to
+// itself (total Mz = 0), where R commutes with H: in the basis of
+// R-symmetric and R-antisymmetric combinations (e_s ± e_σ(s))/√2 the block
+// splits into two halves, each diagonalised on its own (about a quarter of
+// the work). The eigenvectors are returned in the product basis.
+func (b *basis) diagonaliseMirror(blk int, jm [][]float64, perm []int) (eigen, error) {
+	states := b.blocks[blk]
+	d := len(states)
+	// sigma[i]: position of R(state i) in the block.
+	sigma := make([]int, d)
+	for i, s := range states {
+		r := 0
+		for k, sp := range b.spins {
+			r += b.stride[perm[k]] * (sp.twoF - b.digit(s, k))
+		}
+		sigma[i] = b.pos[r]
+	}
+	// Orbits: representatives i ≤ sigma[i]; fixed points are symmetric.
+	var plus, minus []int
+	for i, j := range sigma {
+		if i < j {
+			plus, minus = append(plus, i), append(minus, i)
+		} else if i == j {
+			plus = append(plus, i)
+		}
+	}
+	h := b.hamiltonian(blk, jm)
+	vecs := mat.NewDense(d, d, nil)
+	vals := make([]float64, 0, d)
+	col := 0
+	for _, half := range []struct {
+		reps []int
+		sign float64
+	}{{plus, 1}, {minus, -1}} {
+		n := len(half.reps)
+		if n == 0 {
+			continue
+		}
+		// q(p) = (e_i + sign·e_σ(i))/√2, or e_i for a fixed point.
+		coef := func(i int) (int, float64, float64) {
+			if sigma[i] == i {
+				return i, 1, 0
+			}
+			return sigma[i], math.Sqrt2 / 2, half.sign * math.Sqrt2 / 2
+		}
+		a := make([]float64, n*n)
+		for p, i := range half.reps {
+			i2, ci, ci2 := coef(i)
+			for q := p; q < n; q++ {
+				j := half.reps[q]
+				j2, cj, cj2 := coef(j)
+				v := ci*cj*h.At(i, j) + ci*cj2*h.At(i, j2) + ci2*cj*h.At(i2, j) + ci2*cj2*h.At(i2, j2)
+				a[p*n+q] = v
+			}
+		}
+		ev, ok := symEigen(a, n)
+		if !ok {
+			return eigen{}, errEigen
+		}
+		vals = append(vals, ev...)
+		for p, i := range half.reps {
+			i2, ci, ci2 := coef(i)
+			row, row2 := vecs.RawRowView(i), vecs.RawRowView(i2)
+			for c := 0; c < n; c++ {
+				x := a[p*n+c]
+				row[col+c] += ci * x
+				if ci2 != 0 {
+					row2[col+c] += ci2 * x
+				}
+			}
+		}
+		col += n
+	}
+	return eigen{vals: vals, vecs: vecs}, nil
 }
