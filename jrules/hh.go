@@ -205,11 +205,17 @@ func substituentClass(m *graph.Mol, n, c int) string {
 }
 
 // aromaticPair returns the ortho (path of 2 atoms), meta (3) or para (4)
-// coupling within one aromatic ring, or an unresolved long-range value
-// when the path does not lie in one five- or six-membered ring.
+// coupling within one aromatic ring (ortho only in a seven-membered one),
+// or an unresolved long-range value when the path does not lie in one
+// five-, six- or seven-membered ring.
 func aromaticPair(m *graph.Mol, path []int) J {
 	n := len(path) + 1 // number of bonds between the protons
 	ring := ringThrough(m, path, 6)
+	if ring == nil && len(path) == 2 {
+		if r7 := ringThrough(m, path, 7); len(r7) == 7 {
+			return ar7Ortho.j(n) // azulene, tropylium, tropolone
+		}
+	}
 	if ring == nil || len(ring) < 5 {
 		return unresolved(n)
 	}

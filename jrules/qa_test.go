@@ -37,3 +37,26 @@ func TestGeminalHFByFluorineCount(t *testing.T) {
 		}
 	}
 }
+
+// TestSevenRingOrtho: vicinal H–H across a bond of a seven-membered
+// aromatic ring is about 10 Hz (azulene J45 9.5, J56 9.9 Hz; Pretsch, value
+// from memory). Before, such a pair got no ring rule and was "unresolved"
+// (0 Hz), so azulene's seven-ring protons were predicted as singlets.
+func TestSevenRingOrtho(t *testing.T) {
+	m, err := smiles.Parse("c1ccc2cccc2cc1") // azulene: atoms 0,1,2,8,9 ring H
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, pair := range [][2]int{{0, 1}, {1, 2}} {
+		j, ok := Between(m, h(pair[0]), h(pair[1]))
+		if !ok || j.Typical < 9 || j.Typical > 11 || j.NBonds != 3 {
+			t.Errorf("azulene H%d–H%d: %+v, %v; want ³J 9–11 Hz", pair[0], pair[1], j, ok)
+		}
+	}
+	// The six-membered ring is unchanged: benzene ortho 7.54 Hz (Pretsch,
+	// value from memory).
+	b, _ := smiles.Parse("c1ccccc1")
+	if j, ok := Between(b, h(0), h(1)); !ok || j.Typical < 7 || j.Typical > 8.5 {
+		t.Errorf("benzene ortho: %+v", j)
+	}
+}

@@ -121,6 +121,9 @@ var (
 	arOrtho = rule{"3J aromatic ortho", 7.7, 6.5, 9.0}
 	arMeta  = rule{"4J aromatic meta", 1.8, 1.0, 3.0}
 	arPara  = rule{"5J aromatic para", 0.5, 0, 1.0}
+	// Seven-membered aromatic rings (azulene J45 9.5, J56 9.9 Hz; Pretsch,
+	// value from memory).
+	ar7Ortho = rule{"3J aromatic ortho, seven-membered ring", 9.8, 9.0, 11.0}
 )
 
 // Pyridine-type six-membered rings (Pretsch; value from memory: pyridine
