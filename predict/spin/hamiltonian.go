@@ -133,20 +133,39 @@ type sink struct {
 	dropped float64 // intensity of transitions weaker than MinLine
 }
 
-// all returns the lines of out and of all chunks in one slice.
+// all returns the lines of all chunks and of out in one slice, ordered by
+// group (a counting sort, stable), ready for mergeRaw.
 func (s *sink) all() []rawLine {
-	n := len(s.out)
+	n, ng := len(s.out), 0
 	for _, c := range s.chunks {
 		n += len(c)
 	}
 	if n == len(s.out) {
 		return s.out
 	}
-	out := make([]rawLine, 0, n)
-	for _, c := range s.chunks {
-		out = append(out, c...)
+	chunks := append(s.chunks, s.out)
+	for _, c := range chunks {
+		for _, l := range c {
+			ng = max(ng, l.eg+1)
+		}
 	}
-	return append(out, s.out...)
+	next := make([]int, ng+1)
+	for _, c := range chunks {
+		for _, l := range c {
+			next[l.eg+1]++
+		}
+	}
+	for g := 1; g <= ng; g++ {
+		next[g] += next[g-1]
+	}
+	out := make([]rawLine, n)
+	for _, c := range chunks {
+		for _, l := range c {
+			out[next[l.eg]] = l
+			next[l.eg]++
+		}
+	}
+	return out
 }
 
 // transitions adds the lines of spins to dst (as chunks; raw intensities, which sum
