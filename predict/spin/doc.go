@@ -28,7 +28,10 @@
 // diagonalised (Householder tridiagonalisation with gonum's LAPACK, then
 // implicit QL with the plane rotations applied row by row, which is
 // cache-friendly for row-major storage), so the full 2^n matrix is never
-// formed. A group of n magnetically equivalent spin-1/2 nuclei is replaced by
+// formed. When the spins' frequencies are symmetric about a centre and the
+// couplings symmetric under the matching exchange of spins (a mirror
+// symmetry, see mirror.go), only half of the blocks are diagonalised, the
+// middle block in two halves, and the other lines are mirror images. A group of n magnetically equivalent spin-1/2 nuclei is replaced by
 // composite particles of total spin F (n=3: F=3/2 once and F=1/2 twice) and
 // the sub-spectra are weighted by the multiplicities, which keeps clusters
 // with several CH3 and CH2 groups small. Groups whose members are given
