@@ -121,9 +121,16 @@ func runPredict(f *Factory, o *predictOptions) error {
 }
 
 // predictSmilesError formats a SMILES error with the input and a caret
-// under the offending column.
+// under the offending column, for every error found (as describe does).
 func predictSmilesError(src string, err error) error {
 	pos := -1
+	if l, ok := smiles.AsList(err); ok && len(l) > 1 {
+		parts := make([]string, len(l))
+		for i, e := range l {
+			parts[i] = fmt.Sprintf("%v\n%s", e, smiles.Caret(src, e.Pos))
+		}
+		return errors.New(strings.Join(parts, "\n"))
+	}
 	if l, ok := smiles.AsList(err); ok && len(l) > 0 {
 		pos = l[0].Pos
 	}

@@ -182,3 +182,15 @@ func TestPredictLabelsAboveMultiplet(t *testing.T) {
 		}
 	}
 }
+
+// TestPredictAllSmilesErrors: predict shows every SMILES error with its
+// own caret, as describe does, instead of the first one and "(and 1 more
+// errors)" with no way to see the second (common practice, no source).
+func TestPredictAllSmilesErrors(t *testing.T) {
+	code, _, errOut := qaRun("predict", "Xx")
+	if code != exitError || strings.Contains(errOut, "more error") ||
+		!strings.Contains(errOut, "col 1: unexpected character 'X'\nXx\n^\n") ||
+		!strings.Contains(errOut, "col 2: unexpected character 'x'\nXx\n ^") {
+		t.Errorf("exit %d, stderr:\n%s", code, errOut)
+	}
+}
