@@ -29,7 +29,7 @@ const (
 	realMinCentreRate   = 0.92 // 0.932 after the valley rule compared with the tallest line of the multiplet (from 0.913)
 	realMinRegionRate   = 0.98 // 1.000
 	realMinJRate        = 0.49 // 0.500 with CHCl3 split from an aromatic triplet; 0.485 after the valley rule change (from 0.455 after strong sharp singlets were kept, dropNarrow; 0.47 before)
-	realMinIntegralRate = 0.66 // 0.684 with CHCl3 split off; 0.662 after broad-line widths (topWidth) and the valley rule (from 0.603)
+	realMinIntegralRate = 0.66 // 0.671 with CHCl3 split off, broad-line widths and the valley rule (0.684 at one point came partly from bogus 400 Hz widths of weak lines, since fixed); 0.603 before
 )
 
 // readTSV reads a tab-separated file with a header into maps.

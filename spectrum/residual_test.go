@@ -318,3 +318,27 @@ func TestUndersampledDoublet(t *testing.T) {
 		t.Errorf("doublet line heights %.3g and %.3g", a, b)
 	}
 }
+
+// TestStrongSharpLineKept: a sharp line far above the noise (S/N 9,000) but
+// below 5 % of a huge singlet must not be dropped as a noise point because
+// most other lines are broader (aspirin, cheminfo 50-78-2: its 7.55 ppm
+// line went missing). Lorentzian lines, common practice, no source.
+func TestStrongSharpLineKept(t *testing.T) {
+	t.Parallel()
+	const field = 300.1
+	s := noisyAxis(field, 0, 10, 65536, 91)
+	s.Solvent = "CDCl3"
+	addLorentz(s, 2.29, 200000, 1.2)
+	for k := range 8 {
+		addLorentz(s, 7.0+0.12*float64(k), 30000, 4.5)
+	}
+	addLorentz(s, 7.95, 9000, 1.2)
+	addLorentz(s, 5.0, 15, 4.5) // a weak line: the S/N scale starts low
+	pl, err := Process(s, ProcessOptions{Reference: RefNone})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if multipletAt(pl, 7.95) == nil {
+		t.Errorf("sharp line at 7.95 ppm (S/N 9000) dropped")
+	}
+}
