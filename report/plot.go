@@ -6,6 +6,7 @@ import (
 	"image/color"
 	"math"
 	"sort"
+	"strconv"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
@@ -147,9 +148,51 @@ func newSpectrumPlot(w window, title string) *plot.Plot {
 	p.X.Label.Text = "δ / ppm"
 	p.X.Min, p.X.Max = w.From, w.To
 	p.X.Scale = plot.InvertedScale{Normalizer: plot.LinearScale{}}
+	p.X.Tick.Marker = ppmTicks{}
 	p.Y.Tick.Marker = plot.ConstantTicks(nil)
 	p.HideY()
 	return p
+}
+
+// ppmTicks places ticks where plot.DefaultTicks does and labels them with
+// as many decimals as their spacing needs: the enlarged multiplet panels
+// span a few hundredths of a ppm, where the default labels read
+// "1.4 1.4 1.4".
+type ppmTicks struct{}
+
+// Ticks implements plot.Ticker.
+func (ppmTicks) Ticks(lo, hi float64) []plot.Tick {
+	ts := plot.DefaultTicks{}.Ticks(lo, hi)
+	var major []int
+	for i, t := range ts {
+		if t.Label != "" {
+			major = append(major, i)
+		}
+	}
+	step := hi - lo
+	for k := 1; k < len(major); k++ {
+		step = math.Min(step, math.Abs(ts[major[k]].Value-ts[major[k-1]].Value))
+	}
+	dec := 0
+	if step > 0 {
+		dec = max(0, int(math.Ceil(-math.Log10(step)-1e-9)))
+	}
+	label := func(v float64) string { return strconv.FormatFloat(v, 'f', dec, 64) }
+	for ; dec < 6; dec++ {
+		distinct := true
+		for k := 1; k < len(major); k++ {
+			if label(ts[major[k]].Value) == label(ts[major[k-1]].Value) {
+				distinct = false
+			}
+		}
+		if distinct {
+			break
+		}
+	}
+	for _, i := range major {
+		ts[i].Label = label(ts[i].Value)
+	}
+	return ts
 }
 
 // addLine adds a polyline in the given colour.
