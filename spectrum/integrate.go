@@ -295,7 +295,7 @@ func scaleByRef(gs []group, ref *IntegralRef) (float64, error) {
 	k := -1
 	if math.IsNaN(ref.PPM) {
 		if ref.Index < 0 || ref.Index >= len(gs) {
-			return 0, fmt.Errorf("integral reference: no multiplet %d (there are %d)", ref.Index, len(gs))
+			return 0, fmt.Errorf("integral reference: no multiplet #%d (there are %d, numbered from 1)", ref.Index+1, len(gs))
 		}
 		k = ref.Index
 	} else {

@@ -273,3 +273,14 @@ func TestProcessMillionPoints(t *testing.T) {
 		}
 	}
 }
+
+// TestIntegralRefIndexMessage: the index in the error is the 1-based #K the
+// user typed (peaks --integral-ref #K=NH), not the 0-based slice index.
+func TestIntegralRefIndexMessage(t *testing.T) {
+	t.Parallel()
+	x, y := lorentzTrace(4096, []float64{2.0}, []float64{100}, 0.5, 8)
+	_, err := Process(&Spectrum{PPM: x, Y: y, FieldMHz: 400}, ProcessOptions{IntegralRef: &IntegralRef{PPM: math.NaN(), Index: 98, NH: 3}})
+	if err == nil || !strings.Contains(err.Error(), "#99") {
+		t.Errorf("error %v, want it to name #99", err)
+	}
+}
