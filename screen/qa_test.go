@@ -158,3 +158,27 @@ func TestIDControlCharacters(t *testing.T) {
 		t.Errorf("row 1: %+v", r)
 	}
 }
+
+// FuzzManifestParse: any manifest text gives a manifest or an error that
+// names the file, never a panic; validating the samples never panics either.
+func FuzzManifestParse(f *testing.F) {
+	f.Add("[[sample]]\nid = \"a\"\nspectrum = \"a.jdx\"\nsmiles = \"CCO\"\ncandidates = [\"C1CC\"]\n")
+	f.Add("field_mhz = -5\n[[sample]]\nid = \"a\\tb\"\nspectrum = \"\"\nsmiles = \"\"\n")
+	f.Add("[[sample]]\nid = \"s\"\nspectrum = \"x\"\nsmiles = \"C\"\n[sample.standard]\nsmiles = \"c1ccc\"\nmass_mg = 5\n")
+	f.Add("title = \"t\"\nsolvnt = 1\n")
+	f.Fuzz(func(t *testing.T, text string) {
+		m, err := Parse(text, "fz.toml")
+		if err != nil {
+			if !strings.HasPrefix(err.Error(), "fz.toml") {
+				t.Errorf("error without the file name: %v", err)
+			}
+			return
+		}
+		m.Path = "fz.toml"
+		seen := map[string]int{}
+		for i := range m.Samples {
+			m.validate(i, seen)
+			seen[m.Samples[i].ID] = i + 1
+		}
+	})
+}
