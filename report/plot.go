@@ -300,24 +300,25 @@ func addSignalLabels(p *plot.Plot, r *compare.Result, top float64) error {
 }
 
 // addUnexplainedMarks marks every unexplained multiplet above the trace with
-// a triangle and its likely identity (or "?").
+// a triangle and its number in the page's table of unexplained peaks
+// (numbers stay legible where names would pile up). Only the ones the table
+// lists with an identity get their name as well, when they hold at least
+// namedMinPercent of the intensity.
 func addUnexplainedMarks(p *plot.Plot, r *compare.Result, top float64) error {
 	if len(r.Unexplained) == 0 {
 		return nil
 	}
+	const namedMinPercent = 1.0
 	var xys plotter.XYs
 	var texts []string
 	for i, u := range r.Unexplained {
-		name := u.Likely
-		if name == "" {
-			name = "?"
+		text := fmt.Sprint(i + 1)
+		if u.Likely != "" && u.Percent >= namedMinPercent {
+			text += " " + u.Likely
 		}
-		y := 1.05 * top
-		if i%2 == 1 {
-			y = 1.15 * top
-		}
+		y := (1.04 + 0.07*float64(i%3)) * top
 		xys = append(xys, plotter.XY{X: u.PPM, Y: y})
-		texts = append(texts, name)
+		texts = append(texts, text)
 	}
 	sc, err := plotter.NewScatter(xys)
 	if err != nil {
@@ -327,7 +328,7 @@ func addUnexplainedMarks(p *plot.Plot, r *compare.Result, top float64) error {
 	p.Add(sc)
 	shifted := make(plotter.XYs, len(xys))
 	for i, xy := range xys {
-		shifted[i] = plotter.XY{X: xy.X, Y: xy.Y + 0.04*top}
+		shifted[i] = plotter.XY{X: xy.X, Y: xy.Y + 0.035*top}
 	}
 	return addLabels(p, shifted, texts, flagColor, 7)
 }
