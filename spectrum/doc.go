@@ -141,8 +141,11 @@
 // singlet within 0.1 ppm of the solvent's water shift (all
 // unlabelled ones of that size when none is first-order) are scaled so
 // that the smallest is n protons, n being the smallest of 1…4 for which
-// all of them come out within a mean 0.12 of whole numbers (n = 1 when none
-// does). An [IntegralRef] instead fixes the multiplet at a ppm (or with an
+// all of them come out within a mean 0.12 of whole numbers. When no n
+// does, the unit is the largest area/n (n = 1…4, from a first-order
+// multiplet) under which at least half of the unlabelled multiplets of that
+// size come out within 0.15 of a whole number ≥ 1 (else n = 1 on the
+// smallest). An [IntegralRef] instead fixes the multiplet at a ppm (or with an
 // index) to a given number of protons.
 //
 // A spectrum with only a peak table skips baseline, noise and picking: its

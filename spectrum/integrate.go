@@ -37,6 +37,7 @@ const (
 	integrateMarginWidths = 5.0 // region margin in line widths (FWHM)
 	integrateMarginHz     = 3.0 // smallest region margin
 	wholeTolerance        = 0.12
+	voteTolerance         = 0.15 // per multiplet, see voteUnit
 	maxWholeN             = 4
 	tailCorrectionCap     = 0.15
 	maxDeconvolveLines    = 64 // larger multiplets keep their picked heights
@@ -284,7 +285,49 @@ func scaleIntegrals(gs []group, ref *IntegralRef) (float64, error) {
 			return f, nil
 		}
 	}
+	var voters []float64
+	for _, g := range gs {
+		if g.label == "" && !g.water && g.raw > 0 && g.raw >= floor {
+			voters = append(voters, g.raw)
+		}
+	}
+	if f, ok := voteUnit(resolved, voters); ok {
+		return f, nil
+	}
 	return 1 / smallest, nil
+}
+
+// voteUnit is the fallback when no n makes every resolved multiplet whole:
+// one impurity or a saturated line spoils the mean, and scaling to the
+// smallest area (often that impurity) then puts every count off by the same
+// factor. Each resolved area a and n = 1…maxWholeN propose the unit a/n; a
+// voter (every unlabelled multiplet of at least the size floor, first-order
+// or not) agrees when it comes out within voteTolerance of a whole number of
+// at least 1. The largest unit with which at least half the voters (and at
+// least two) agree wins: a smaller unit always finds more agreement by
+// chance, as its whole numbers lie closer together.
+func voteUnit(areas, voters []float64) (float64, bool) {
+	need := max(2, (len(voters)+1)/2)
+	bestU := 0.0
+	for _, a := range areas {
+		for n := 1; n <= maxWholeN; n++ {
+			u := a / float64(n)
+			if u <= bestU {
+				continue
+			}
+			hits := 0
+			for _, b := range voters {
+				x := b / u
+				if x >= 0.8 && math.Abs(x-math.Round(x)) <= voteTolerance {
+					hits++
+				}
+			}
+			if hits >= need {
+				bestU = u
+			}
+		}
+	}
+	return 1 / bestU, bestU > 0
 }
 
 // scaleByRef scales so that the referenced multiplet integrates to ref.NH.
