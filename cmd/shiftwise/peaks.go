@@ -80,8 +80,10 @@ spinning sidebands and line-shape skirts of strong lines are marked on the
 peaks and left out of the multiplets.
 
 Integrals are relative: the smallest well-resolved multiplet (first-order, not
-the solvent or TMS) is set to a whole number of H, the smallest of 1-4 that
-makes the other well-resolved multiplets whole numbers too (else 1).
+the solvent, TMS or a water singlet) is set to a whole number of H, the
+smallest of 1-4 that makes the other well-resolved multiplets whole numbers too;
+when none does, the largest unit that makes at least half of the multiplets
+whole numbers is used (else the smallest is 1 H).
 --integral-ref PPM=NH instead sets the multiplet at PPM to NH protons
 (--integral-ref #K=NH: the K-th multiplet of the table).
 
