@@ -1,38 +1,14 @@
 package shiftinc
 
-import "strings"
+import (
+	"strings"
 
-// builtinSolvents maps folded spellings (see foldSolvent) to normalised
-// solvent names. Longer, more specific spellings are matched first.
-var builtinSolvents = []struct {
-	name      string
-	spellings []string
-}{
-	{"DMSO-d6", []string{"dmsod6", "dmso", "dimethylsulfoxide", "dimethylsulphoxide", "dimethylsulfoxided6", "dimethylsulphoxided6", "dmcod6", "c2d6so", "cd32so"}},
-	{"CD3OD", []string{"cd3od", "methanold4", "methanol", "meod", "meodd4", "cd3oh"}},
-	{"D2O", []string{"d2o", "deuteriumoxide", "water", "h2o", "waterd2"}},
-	{"acetone-d6", []string{"acetoned6", "acetone", "cd32co"}},
-	{"C6D6", []string{"c6d6", "benzened6", "benzene"}},
-	{"CDCl3", []string{"cdcl3", "chloroformd", "chloroformd1", "chloroform", "deuterochloroform", "chcl3"}},
-	{"CD3CN", []string{"cd3cn", "acetonitriled3", "acetonitrile"}},
-	{"CD2Cl2", []string{"cd2cl2", "dichloromethaned2", "methylenechlorided2", "dichloromethane"}},
-	{"CCl4", []string{"ccl4", "tetrachloromethane", "carbontetrachloride"}},
-	{"pyridine-d5", []string{"pyridined5", "pyridind5", "c5d5n", "pyridine"}},
-	{"toluene-d8", []string{"toluened8", "toluold8", "toluene", "c7d8"}},
-	{"THF-d8", []string{"thfd8", "tetrahydrofurand8", "thf", "c4d8o"}},
-}
+	"shiftwise/internal/solvent"
+)
 
-// foldSolvent lower-cases a solvent spelling and drops everything but
-// letters and digits: "DMSO-d6" → "dmsod6", "chloroform-d" → "chloroformd".
-func foldSolvent(s string) string {
-	var b strings.Builder
-	for _, r := range strings.ToLower(s) {
-		if r >= 'a' && r <= 'z' || r >= '0' && r <= '9' {
-			b.WriteRune(r)
-		}
-	}
-	return b.String()
-}
+// foldSolvent folds a solvent spelling for the table's own aliases (rows of
+// a user file may add spellings); see solvent.Fold.
+func foldSolvent(s string) string { return solvent.Fold(s) }
 
 // NormalizeSolvent maps a solvent name to the name used in the tables:
 // "CDCl3", "DMSO-d6", "CD3OD", "D2O", "acetone-d6", "C6D6", and also "CD3CN",
@@ -53,45 +29,12 @@ func (t *Table) NormalizeSolvent(name string) (string, bool) {
 	if strings.TrimSpace(name) == "" {
 		return "CDCl3", true
 	}
-	try := func(s string) (string, bool) {
-		f := foldSolvent(s)
-		if f == "" {
-			return "", false
-		}
-		if n, ok := t.solventAlias[f]; ok {
-			return n, true
-		}
-		for _, b := range builtinSolvents {
-			if foldSolvent(b.name) == f {
-				return b.name, true
-			}
-			for _, sp := range b.spellings {
-				if sp == f || "d6"+sp == f || "d4"+sp == f || "d8"+sp == f {
-					return b.name, true
-				}
-			}
-		}
-		return "", false
-	}
-	if n, ok := try(name); ok {
+	f := foldSolvent(name)
+	if n, ok := t.solventAlias[f]; ok && f != "" {
 		return n, true
 	}
-	// Verbose labels: "Chloroform-D1 (CDCl3)", "Benzene-D6 (C6D6)".
-	if i := strings.IndexByte(name, '('); i >= 0 {
-		if n, ok := try(name[:i]); ok {
-			return n, true
-		}
-		inner := strings.Trim(name[i:], "() ")
-		for _, part := range strings.FieldsFunc(inner, func(r rune) bool { return r == ',' || r == ')' || r == '(' }) {
-			if n, ok := try(part); ok {
-				return n, true
-			}
-		}
-	}
-	if f := strings.Fields(name); len(f) > 1 {
-		if n, ok := try(f[0]); ok {
-			return n, true
-		}
+	if n, ok := solvent.Normalize(name); ok {
+		return n, true
 	}
 	return name, false
 }

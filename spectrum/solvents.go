@@ -1,9 +1,6 @@
 package spectrum
 
-import (
-	"strings"
-	"unicode"
-)
+import "shiftwise/internal/solvent"
 
 // Solvent describes a deuterated NMR solvent: where its residual
 // (incompletely deuterated) proton signal and its dissolved water appear in a
@@ -42,52 +39,12 @@ var residuals = []Solvent{
 	{"pyridine-d5", 8.74, "s", 0, 4.96, fulmerSource},
 }
 
-// solventAliases maps a folded spelling (see foldSolvent) to the canonical
-// name. It covers the ways JCAMP-DX headers and people write the solvents.
-var solventAliases = map[string]string{
-	"CDCL3": "CDCl3", "CHLOROFORMD": "CDCl3", "CHLOROFORM": "CDCl3", "DEUTEROCHLOROFORM": "CDCl3", "CHLOROFORMD1": "CDCl3",
-	"ACETONE": "acetone-d6", "ACETONED6": "acetone-d6", "ACETONED": "acetone-d6", "CD3COCD3": "acetone-d6", "ACETON": "acetone-d6",
-	"DMSO": "DMSO-d6", "DMSOD6": "DMSO-d6", "DMSOD": "DMSO-d6", "DIMETHYLSULFOXIDED6": "DMSO-d6", "DIMETHYLSULFOXIDE": "DMSO-d6", "CD3SOCD3": "DMSO-d6",
-	"C6D6": "C6D6", "BENZENED6": "C6D6", "BENZENE": "C6D6",
-	"CD3CN": "CD3CN", "ACETONITRILED3": "CD3CN", "ACETONITRILE": "CD3CN", "ACN": "CD3CN",
-	"CD3OD": "CD3OD", "MEOD": "CD3OD", "METHANOLD4": "CD3OD", "METHANOL": "CD3OD", "MEODD4": "CD3OD", "CDOD": "CD3OD", "MEOHD4": "CD3OD",
-	"D2O": "D2O", "DEUTERIUMOXIDE": "D2O", "WATERD2": "D2O", "HDO": "D2O", "H2OD2O": "D2O",
-	"CD2CL2": "CD2Cl2", "DICHLOROMETHANED2": "CD2Cl2", "METHYLENECHLORIDED2": "CD2Cl2", "DICHLOROMETHANE": "CD2Cl2", "DCM": "CD2Cl2",
-	"THFD8": "THF-d8", "THF": "THF-d8", "TETRAHYDROFURAND8": "THF-d8",
-	"TOLUENED8": "toluene-d8", "TOLUENE": "toluene-d8", "C7D8": "toluene-d8",
-	"PYRIDINED5": "pyridine-d5", "PYRIDINE": "pyridine-d5", "C5D5N": "pyridine-d5",
-}
-
-// foldSolvent upper-cases a solvent name and drops everything but letters and
-// digits, so "DMSO-d6", "dmso_d6" and "DMSO D6" fold to the same key.
-func foldSolvent(name string) string {
-	var b strings.Builder
-	for _, r := range name {
-		if unicode.IsLetter(r) || unicode.IsDigit(r) {
-			b.WriteRune(unicode.ToUpper(r))
-		}
-	}
-	return b.String()
-}
-
 // NormalizeSolvent returns the canonical name of a solvent as written in a
 // file header or on the command line ("CHLOROFORM-D" → "CDCl3", "DMSO" →
-// "DMSO-d6", "MeOD" → "CD3OD", …). ok is false when the name is not
-// recognised; the returned name is then the input, trimmed.
-func NormalizeSolvent(name string) (string, bool) {
-	key := foldSolvent(name)
-	if c, ok := solventAliases[key]; ok {
-		return c, true
-	}
-	// Headers sometimes add a concentration or a mixture note
-	// ("CDCl3 + TMS", "DMSO-D6 (99.9%)"): try the first word.
-	if f := strings.FieldsFunc(name, func(r rune) bool { return r == ' ' || r == '+' || r == '(' || r == ',' || r == '/' }); len(f) > 1 {
-		if c, ok := solventAliases[foldSolvent(f[0])]; ok {
-			return c, true
-		}
-	}
-	return strings.TrimSpace(name), false
-}
+// "DMSO-d6", "MeOD" → "CD3OD", "CDCl3 + TMS" → "CDCl3", …), using the
+// project's one spelling table (internal/solvent). ok is false when the name
+// is not recognised; the returned name is then the input, trimmed.
+func NormalizeSolvent(name string) (string, bool) { return solvent.Normalize(name) }
 
 // LookupSolvent returns the residual-signal data of a solvent given in any
 // spelling NormalizeSolvent accepts.
