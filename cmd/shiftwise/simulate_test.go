@@ -122,11 +122,18 @@ func TestSimulateErrors(t *testing.T) {
 	os.WriteFile(bad, []byte("[[group]]\nname = \"a\"\nshift_ppm = 1\n[[coupling]]\nbetween = [\"a\", \"z\"]\nj_hz = 7\n"), 0o644)
 	bad2 := filepath.Join(dir, "bad2.toml")
 	os.WriteFile(bad2, []byte("[[group]]\nname = \"a\"\ncount = 0\n"), 0o644)
+	// Values out of bounds (predict/spin/spinfile.go): refused with
+	// file:line: key, not simulated (common practice, no source).
+	huge := filepath.Join(dir, "huge.toml")
+	os.WriteFile(huge, []byte("[[group]]\nname = \"a\"\nshift_ppm = 1e300\n[[group]]\nname = \"b\"\nshift_ppm = 2\n[[coupling]]\nbetween = [\"a\", \"b\"]\nj_hz = 1e300\n"), 0o644)
 	for _, tc := range []struct {
 		args []string
 		want string
 	}{
 		{[]string{"simulate"}, "expected one spin-system file"},
+		{[]string{"simulate", huge}, huge + ":3: group[1].shift_ppm: shift must be within ±1000 ppm, found 1e+300\n" + huge + ":9: coupling[1].j_hz: J must be within ±1000 Hz"},
+		{[]string{"simulate", "../../testdata/spins/ab.toml", "--field", "0"}, "--field must be the 1H observe frequency in MHz, between 1 and 10000"},
+		{[]string{"simulate", "../../testdata/spins/ab.toml", "--field", "1e9"}, "--field must be the 1H observe frequency"},
 		{[]string{"simulate", bad}, bad + `:5: coupling[1].between: unknown group "z"`},
 		{[]string{"simulate", "../../testdata/spins/ab.toml", "--mode", "fast"}, `unknown mode "fast"`},
 		{[]string{"simulate", "../../testdata/spins/ab.toml", "--field", "-3"}, "--field must be"},

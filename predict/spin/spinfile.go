@@ -27,6 +27,12 @@ import (
 //	[[coupling]]
 //	between = ["a", "b"]
 //	j_hz = 17.0
+//
+// Values are bounded so that a typo (a shift in Hz, a field in Hz or GHz)
+// is refused with its file:line:key instead of simulated: shift_ppm within
+// ±MaxFileShiftPPM, j_hz within ±MaxFileJHz, field_mhz in
+// [MinFileFieldMHz, MaxFileFieldMHz] and line_width_hz in (0,
+// MaxFileLineWidthHz].
 type File struct {
 	Name        string  // file name used in messages
 	FieldMHz    float64 // 0 when the file does not say
@@ -142,6 +148,18 @@ func (p *fileParser) errorf(line int, key, format string, args ...any) {
 	p.errs = append(p.errs, &FileError{File: p.name, Line: line, Key: key, Msg: fmt.Sprintf(format, args...)})
 }
 
+// Bounds of the values of a spin-system file. The largest 1H, 19F and 31P
+// shifts lie within a few hundred ppm and the largest H–P couplings (1J, in
+// phosphines and phosphonates) below about 700 Hz (common practice, no
+// source); 1H observe frequencies run from about 40 to 1200 MHz.
+const (
+	MaxFileShiftPPM    = 1000.0
+	MaxFileJHz         = 1000.0
+	MinFileFieldMHz    = 1.0
+	MaxFileFieldMHz    = 10000.0
+	MaxFileLineWidthHz = 1000.0
+)
+
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 func (p *fileParser) build(raw *rawFile) *File {
@@ -149,11 +167,14 @@ func (p *fileParser) build(raw *rawFile) *File {
 	if raw.FieldMHz != nil {
 		if f.FieldMHz = *raw.FieldMHz; !(f.FieldMHz > 0) || !finite(f.FieldMHz) {
 			p.errorf(p.loc.line("", 0, "field_mhz"), "field_mhz", "must be a positive number of MHz, found %v", f.FieldMHz)
+		} else if f.FieldMHz < MinFileFieldMHz || f.FieldMHz > MaxFileFieldMHz {
+			p.errorf(p.loc.line("", 0, "field_mhz"), "field_mhz", "must be the 1H observe frequency in MHz, between %g and %g (e.g. 400), found %v",
+				MinFileFieldMHz, MaxFileFieldMHz, f.FieldMHz)
 		}
 	}
 	if raw.LineWidthHz != nil {
-		if f.LineWidthHz = *raw.LineWidthHz; !(f.LineWidthHz > 0) || !finite(f.LineWidthHz) {
-			p.errorf(p.loc.line("", 0, "line_width_hz"), "line_width_hz", "must be a positive number of Hz, found %v", f.LineWidthHz)
+		if f.LineWidthHz = *raw.LineWidthHz; !(f.LineWidthHz > 0) || !finite(f.LineWidthHz) || f.LineWidthHz > MaxFileLineWidthHz {
+			p.errorf(p.loc.line("", 0, "line_width_hz"), "line_width_hz", "must be a positive number of Hz up to %g, found %v", MaxFileLineWidthHz, f.LineWidthHz)
 		}
 	}
 	if len(raw.Group) == 0 {
@@ -195,6 +216,9 @@ func (p *fileParser) group(i int, g rawGroup, index map[string]int) Group {
 	} else if out.ShiftPPM = *g.ShiftPPM; !finite(out.ShiftPPM) {
 		l, k := key("shift_ppm")
 		p.errorf(l, k, "shift must be a finite number, found %v", out.ShiftPPM)
+	} else if math.Abs(out.ShiftPPM) > MaxFileShiftPPM {
+		l, k := key("shift_ppm")
+		p.errorf(l, k, "shift must be within ±%g ppm, found %v", MaxFileShiftPPM, out.ShiftPPM)
 	}
 	if g.Count != nil {
 		if c := *g.Count; c < 1 || c > MaxCount {
@@ -259,6 +283,10 @@ func (p *fileParser) coupling(i int, c rawCoupling, index map[string]int, seen m
 	} else if j = *c.JHz; !finite(j) {
 		l, k := key("j_hz")
 		p.errorf(l, k, "J must be a finite number, found %v", j)
+		ok = false
+	} else if math.Abs(j) > MaxFileJHz {
+		l, k := key("j_hz")
+		p.errorf(l, k, "J must be within ±%g Hz, found %v", MaxFileJHz, j)
 		ok = false
 	}
 	return Coupling{A: ab[0], B: ab[1], JHz: j}, ok

@@ -70,6 +70,14 @@ func TestParseFileErrors(t *testing.T) {
 		{"self coupling", "[[group]]\nname = \"a\"\nshift_ppm = 1\n[[coupling]]\nbetween = [\"a\", \"a\"]\nj_hz = 7\n", 5, "to itself"},
 		{"three names", "[[group]]\nname = \"a\"\nshift_ppm = 1\n[[coupling]]\nbetween = [\"a\"]\nj_hz = 7\n", 5, "expected two group names, found 1"},
 		{"bad field", "field_mhz = -1\n[[group]]\nname = \"a\"\nshift_ppm = 1\n", 1, "field_mhz: must be a positive"},
+		// Bounds (spinfile.go): a shift in Hz, a J or field in the wrong
+		// unit is refused with its line and key (common practice, no source).
+		{"huge shift", "[[group]]\nname = \"a\"\nshift_ppm = 1e300\n", 3, "group[1].shift_ppm: shift must be within ±1000 ppm, found 1e+300"},
+		{"shift in Hz", "[[group]]\nname = \"a\"\nshift_ppm = -2320\n", 3, "shift must be within ±1000 ppm"},
+		{"huge J", "[[group]]\nname = \"a\"\nshift_ppm = 1\n[[group]]\nname = \"b\"\nshift_ppm = 2\n[[coupling]]\nbetween = [\"a\", \"b\"]\nj_hz = 1e300\n", 9, "coupling[1].j_hz: J must be within ±1000 Hz, found 1e+300"},
+		{"field in Hz", "field_mhz = 4e8\n[[group]]\nname = \"a\"\nshift_ppm = 1\n", 1, "field_mhz: must be the 1H observe frequency in MHz, between 1 and 10000"},
+		{"field below 1", "\n\nfield_mhz = 0.4\n[[group]]\nname = \"a\"\nshift_ppm = 1\n", 3, "field_mhz: must be the 1H observe frequency"},
+		{"huge width", "line_width_hz = 1e9\n[[group]]\nname = \"a\"\nshift_ppm = 1\n", 1, "line_width_hz: must be a positive number of Hz up to 1000"},
 		{"wrong type", "[[group]]\nname = \"a\"\nshift_ppm = \"high\"\n", 0, "x.toml"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -94,6 +102,7 @@ func FuzzParseFile(f *testing.F) {
 	f.Add([]byte(goodFile))
 	f.Add([]byte("[[group]]\nname = \"a\"\nshift_ppm = 1\ncount = 64\n"))
 	f.Add([]byte("[[coupling]]\nbetween = [\"a\", \"b\"]\n"))
+	f.Add([]byte("[[group]]\nname = \"a\"\nshift_ppm = 1e300\n[[group]]\nname = \"b\"\nshift_ppm = 2\n[[coupling]]\nbetween = [\"a\", \"b\"]\nj_hz = 1e300\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		file, err := ParseFile(data, "fuzz.toml")
 		if err != nil {
