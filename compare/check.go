@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
 
 	"shiftwise/predict"
 	"shiftwise/spectrum"
@@ -30,16 +31,24 @@ var (
 // main structure); problems with a candidate or an impurity are reported in
 // the Result instead.
 func Check(in Input, opt Options) (*Result, error) {
+	if in.Standard != nil {
+		if err := in.Standard.Validate(); err != nil {
+			return nil, err
+		}
+	}
+	if f := opt.FieldMHz; f < 0 || !finite(f) {
+		return nil, fmt.Errorf("check: field must be a positive number of MHz (0 for the file's), found %v", f)
+	}
 	pl, trace, warn, err := loadPeaks(in, opt)
 	if err != nil {
 		return nil, err
 	}
 	field := opt.FieldMHz
-	if field <= 0 {
-		field = pl.FieldMHz
+	if !(field > 0) {
+		field = usableField(pl.FieldMHz)
 	}
-	if field <= 0 && trace != nil {
-		field = trace.FieldMHz
+	if !(field > 0) && trace != nil {
+		field = usableField(trace.FieldMHz)
 	}
 	solvName := opt.Solvent
 	if solvName == "" {
@@ -89,17 +98,45 @@ func Check(in Input, opt Options) (*Result, error) {
 	res := buildResult(main, ms, pl, trace, field, canon)
 	res.Warnings = append(append(append(res.Warnings, pl.Warnings...), warn...), pred.Warnings...)
 	res.Artifact = append(res.Artifact, peakArtifacts(pl)...)
+	var qerr error
 	if in.Standard != nil {
-		res.Purity.QNMR, err = qnmrFor(in.Standard, main, main.ms, extras)
-		if err != nil {
-			res.Warnings = append(res.Warnings, err.Error())
-		} else {
+		res.Purity.QNMR, qerr = qnmrFor(in.Standard, main, main.ms, extras)
+		if qerr == nil {
 			p, u := res.Purity.QNMR.PurityPercent, res.Purity.QNMR.Uncertainty
 			res.Purity.QNMRMassPercent, res.Purity.UncertaintyPercent = &p, &u
 		}
 	}
 	rankCandidates(res, in, opt, pr, main, ms, pre, field, solv, solvOK, extras, canon, pl.Trace)
+	if qerr != nil {
+		qnmrMissingRule(res, qerr)
+	}
 	return res, nil
+}
+
+// qnmrMissingRule: an assay was asked for (an internal standard given) but
+// no qNMR result could be computed. The structure check stands, but a
+// person must look: the verdict is at least review, with the reason (doc.go,
+// "Scores and verdict").
+func qnmrMissingRule(res *Result, err error) {
+	res.Warnings = append(res.Warnings, err.Error())
+	res.Reasons = append(res.Reasons, strings.TrimPrefix(err.Error(), "qNMR: "))
+	if res.Verdict == Consistent {
+		res.Verdict = Review
+	}
+	for k := range res.Candidates {
+		if res.Candidates[k].Main {
+			res.Candidates[k].Verdict = res.Verdict
+		}
+	}
+}
+
+// usableField returns f when it is a positive finite field, else 0 (the
+// predictor's default then applies).
+func usableField(f float64) float64 {
+	if f > 0 && finite(f) {
+		return f
+	}
+	return 0
 }
 
 func loadPeaks(in Input, opt Options) (*spectrum.PeakList, *spectrum.Spectrum, []string, error) {

@@ -297,3 +297,86 @@ func TestCheckRandomPeakLists(t *testing.T) {
 		}
 	}
 }
+
+// TestCheckQNMRSignalAbsent: a standard signal asked for where the standard
+// has none gives no qNMR result; the structure check stands, but the
+// verdict is review with the reason (doc.go, "Scores and verdict").
+// Peaks as in TestCheckQNMR.
+func TestCheckQNMRSignalAbsent(t *testing.T) {
+	t.Parallel()
+	for _, tc := range []struct {
+		name   string
+		extra  []spectrum.Multiplet
+		signal float64
+		reason string
+	}{
+		{"signal 99", []spectrum.Multiplet{mp(6.10, 2, 15, "s"), mp(3.78, 2, 45, "s")}, 99, "internal standard signal at 99.00 ppm not found; no qNMR result"},
+		{"no standard", nil, 0, "internal standard COc1cc(OC)cc(OC)c1 not found in the spectrum; no qNMR result"},
+	} {
+		pl := butanonePeaks()
+		pl.Multiplets = append(pl.Multiplets, tc.extra...)
+		st := &Standard{Smiles: "COc1cc(OC)cc(OC)c1", MassMg: 10, SampleMassMg: 10, PurityPct: 99.5, SignalPPM: tc.signal}
+		res, err := Check(Input{Smiles: "CCC(C)=O", Peaks: pl, Standard: st, Candidates: []string{"CC(C)C=O"}},
+			Options{Solvent: "CDCl3", Predictor: handPredictor(t)})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if res.Verdict != Review || res.Purity.QNMRMassPercent != nil || !strings.Contains(strings.Join(res.Reasons, "|"), tc.reason) {
+			t.Errorf("%s: verdict %s, qNMR %v, reasons %q; want review with %q", tc.name, res.Verdict, res.Purity.QNMRMassPercent, res.Reasons, tc.reason)
+		}
+		for _, c := range res.Candidates {
+			if c.Main && c.Verdict != res.Verdict {
+				t.Errorf("%s: intended structure's candidate row says %s, result %s", tc.name, c.Verdict, res.Verdict)
+			}
+		}
+	}
+}
+
+// TestResultJSONOddCases: no NaN or ±Inf reaches a Result, so every Result
+// encodes as JSON (encoding/json refuses non-finite numbers). Odd cases: the
+// qNMR masses at their bounds both ways, standard and compound integrals
+// of extreme size, empty and degenerate peak lists, an absurd field.
+func TestResultJSONOddCases(t *testing.T) {
+	t.Parallel()
+	std := func(m, sm float64) *Standard {
+		return &Standard{Smiles: "COc1cc(OC)cc(OC)c1", MassMg: m, SampleMassMg: sm, PurityPct: 100}
+	}
+	withStd := func(area float64) *spectrum.PeakList {
+		pl := butanonePeaks()
+		pl.Multiplets = append(pl.Multiplets, mp(6.10, 2, area, "s"), mp(3.78, 2, 3*area, "s"))
+		return pl
+	}
+	cases := []struct {
+		name string
+		in   Input
+		opt  Options
+	}{
+		{"masses max/min", Input{Peaks: withStd(15), Standard: std(MaxMassMg, MinMassMg)}, Options{}},
+		{"masses min/max", Input{Peaks: withStd(15), Standard: std(MinMassMg, MaxMassMg)}, Options{}},
+		{"tiny standard", Input{Peaks: withStd(1e-300), Standard: std(MaxMassMg, MinMassMg)}, Options{}},
+		{"huge standard", Input{Peaks: withStd(1e300), Standard: std(MinMassMg, MaxMassMg)}, Options{}},
+		{"empty peaks", Input{Peaks: &spectrum.PeakList{}, Standard: std(5, 15)}, Options{}},
+		{"zero areas", Input{Peaks: &spectrum.PeakList{Multiplets: []spectrum.Multiplet{mp(2.14, 2, 0, "s"), mp(1.06, 2, 0, "t")}}}, Options{}},
+		{"negative areas", Input{Peaks: &spectrum.PeakList{Multiplets: []spectrum.Multiplet{mp(2.14, 2, -3, "s"), mp(1.06, 2, -1e300, "t")}}}, Options{}},
+		{"huge field", Input{Peaks: butanonePeaks()}, Options{FieldMHz: 1e300}},
+		{"NaN file field", Input{Peaks: &spectrum.PeakList{FieldMHz: math.NaN(), Multiplets: butanonePeaks().Multiplets}}, Options{}},
+		{"NaN shift", Input{Peaks: &spectrum.PeakList{Multiplets: []spectrum.Multiplet{mp(math.NaN(), 2, 30, "s"), mp(1.06, 2, 30, "t")}}}, Options{}},
+	}
+	for _, f := range []float64{math.NaN(), math.Inf(1), -400} {
+		if _, err := Check(Input{Smiles: "CCC(C)=O", Peaks: butanonePeaks()}, Options{FieldMHz: f, Predictor: handPredictor(t)}); err == nil {
+			t.Errorf("field %v accepted", f)
+		}
+	}
+	for _, tc := range cases {
+		tc.in.Smiles = "CCC(C)=O"
+		tc.in.Candidates = []string{"CC(C)C=O"}
+		tc.opt.Solvent, tc.opt.Predictor = "CDCl3", handPredictor(t)
+		res, err := Check(tc.in, tc.opt)
+		if err != nil {
+			continue // refused input is fine; a Result must encode
+		}
+		if _, err := json.Marshal(res); err != nil {
+			t.Errorf("%s: JSON: %v", tc.name, err)
+		}
+	}
+}

@@ -93,6 +93,11 @@
 //     proton-sized signal rather than a scatter of traces); the reason names
 //     the largest;
 //   - the score is below 0.75;
+//   - an internal standard was given but no qNMR result could be
+//     computed (the standard, or its signal at Standard.SignalPPM within
+//     0.1 ppm, not found; no clean compound multiplet): the reason says
+//     so ("internal standard signal at 99.00 ppm not found; no qNMR
+//     result") and the purity's qNMR fields are null;
 //   - a candidate scores at least 0.03 higher. At 0.05 higher, while the
 //     intended structure has a missing signal, a signal more than 3 SD
 //     away or a region short of a proton, the verdict is inconsistent. The
@@ -119,6 +124,10 @@
 // water and unidentified peaks (their share is stated). With an internal
 // standard, QNMRPurity applies the qNMR equation and QNMRUncertainty
 // propagates the integral, weighing and purity uncertainties (see qnmr.go).
+// Check refuses a Standard outside the bounds of Standard.Validate (masses
+// finite, 0.001–10,000 mg; purity in (0, 100] %), so that every term stays
+// finite; no NaN or ±Inf ever reaches a Result (multiplets without a finite
+// position or area are left out, a non-finite field is refused).
 //
 // # Candidates
 //

@@ -48,10 +48,13 @@ func prepMultiplets(pl *spectrum.PeakList) []mplet {
 		if a <= 0 {
 			a = m.RawArea
 		}
-		if a <= 0 || math.IsNaN(a) || math.IsInf(a, 0) {
-			continue
+		if a <= 0 || math.IsNaN(a) || math.IsInf(a, 0) || !finite(m.PPM) {
+			continue // no position or no area: nothing to match
 		}
 		from, to := m.FromPPM, m.ToPPM
+		if !finite(from) || !finite(to) {
+			from, to = 0, 0
+		}
 		if from > to {
 			from, to = to, from
 		}
@@ -62,6 +65,8 @@ func prepMultiplets(pl *spectrum.PeakList) []mplet {
 	}
 	return out
 }
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // multipletPeaks returns the peaks of a multiplet (stray indices skipped).
 func multipletPeaks(pl *spectrum.PeakList, m spectrum.Multiplet) []spectrum.Peak {

@@ -16,6 +16,48 @@ const (
 	MinIntegralUncertainty   = 0.005
 )
 
+// Bounds of the qNMR inputs of a Standard (common practice, no source): a
+// microbalance reads 0.001 mg, and 10 g is far beyond what is weighed into
+// an NMR tube; shifts beyond ±MaxStandardPPM are in the wrong unit.
+// Within them every term of the qNMR equation stays finite.
+const (
+	MinMassMg      = 0.001
+	MaxMassMg      = 10000.0
+	MaxStandardPPM = 1000.0
+)
+
+// Validate checks the weighed masses (finite, MinMassMg–MaxMassMg), the
+// purity (0, 100] %, the signal shift (within ±MaxStandardPPM) and that the
+// uncertainties are finite and not negative. The error names the field.
+func (st *Standard) Validate() error {
+	if st.Smiles == "" {
+		return errors.New("qNMR: the standard has no structure (SMILES)")
+	}
+	for _, m := range []struct {
+		name string
+		v    float64
+	}{{"standard mass", st.MassMg}, {"sample mass", st.SampleMassMg}} {
+		if !(m.v >= MinMassMg && m.v <= MaxMassMg) {
+			return fmt.Errorf("qNMR: %s must be between %g and %g mg, found %v", m.name, MinMassMg, MaxMassMg, m.v)
+		}
+	}
+	if !(st.PurityPct > 0 && st.PurityPct <= 100) {
+		return fmt.Errorf("qNMR: standard purity must be in (0, 100] %%, found %v", st.PurityPct)
+	}
+	if !(math.Abs(st.SignalPPM) <= MaxStandardPPM) {
+		return fmt.Errorf("qNMR: standard signal must be within ±%g ppm, found %v", MaxStandardPPM, st.SignalPPM)
+	}
+	for _, u := range []struct {
+		name string
+		v    float64
+	}{{"mass uncertainty", st.MassUncertaintyMg}, {"purity uncertainty", st.PurityUncertainty}, {"integral uncertainty", st.IntegralUncertainty}} {
+		if !(u.v >= 0) || math.IsInf(u.v, 0) {
+			return fmt.Errorf("qNMR: %s must be finite and not negative, found %v", u.name, u.v)
+		}
+	}
+	return nil
+}
+
 // QNMRPurity applies the internal-standard qNMR equation
 //
 //	P_a = (I_a/I_std) · (N_std/N_a) · (M_a/M_std) · (m_std/m_a) · P_std
@@ -37,8 +79,12 @@ func QNMRPurity(q QNMR) (float64, error) {
 			return 0, fmt.Errorf("qNMR: %s must be positive, found %g", v.name, v.x)
 		}
 	}
-	return (q.IntegralAnalyte / q.IntegralStandard) * (float64(q.NStandard) / float64(q.NAnalyte)) *
-		(q.MAnalyte / q.MStandard) * (q.MassStandardMg / q.MassAnalyteMg) * q.PurityStandard, nil
+	p := (q.IntegralAnalyte / q.IntegralStandard) * (float64(q.NStandard) / float64(q.NAnalyte)) *
+		(q.MAnalyte / q.MStandard) * (q.MassStandardMg / q.MassAnalyteMg) * q.PurityStandard
+	if math.IsInf(p, 0) || math.IsNaN(p) {
+		return 0, fmt.Errorf("qNMR: purity out of range (terms differ by too many orders of magnitude)")
+	}
+	return p, nil
 }
 
 // QNMRUncertainty is the standard uncertainty (percentage points) of a qNMR
@@ -60,7 +106,11 @@ func QNMRUncertainty(q QNMR, relIa, relIstd, uMassMg, uPstd float64) (float64, e
 	}
 	r2 := relIa*relIa + relIstd*relIstd +
 		sq(uMassMg/q.MassAnalyteMg) + sq(uMassMg/q.MassStandardMg) + sq(uPstd/q.PurityStandard)
-	return p * math.Sqrt(r2), nil
+	u := p * math.Sqrt(r2)
+	if math.IsInf(u, 0) || math.IsNaN(u) {
+		return 0, errors.New("qNMR: uncertainty out of range")
+	}
+	return u, nil
 }
 
 func sq(x float64) float64 { return x * x }
@@ -81,7 +131,7 @@ func qnmrFor(st *Standard, ev *evaluation, ms []mplet, extras []extraSpecies) (*
 	}
 	hits := ev.ex.extraHits[std.name]
 	if len(hits) == 0 {
-		return nil, fmt.Errorf("qNMR: no signal of the standard %s found in the spectrum", std.smiles)
+		return nil, fmt.Errorf("qNMR: internal standard %s not found in the spectrum; no qNMR result", std.smiles)
 	}
 	best := -1
 	for k, h := range hits {
@@ -95,7 +145,7 @@ func qnmrFor(st *Standard, ev *evaluation, ms []mplet, extras []extraSpecies) (*
 		}
 	}
 	if st.SignalPPM != 0 && math.Abs(ms[hits[best].j].ppm-st.SignalPPM) > 0.1 {
-		return nil, fmt.Errorf("qNMR: no signal of the standard found near %.2f ppm", st.SignalPPM)
+		return nil, fmt.Errorf("qNMR: internal standard signal at %.2f ppm not found; no qNMR result", st.SignalPPM)
 	}
 	hs := hits[best]
 	ia, na, perH := analyteIntegral(ev, ms)

@@ -2,6 +2,7 @@ package compare
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -51,11 +52,54 @@ func TestQNMRHandComputed(t *testing.T) {
 		func(q *QNMR) { q.MassAnalyteMg = -1 },
 		func(q *QNMR) { q.IntegralStandard = 0 },
 		func(q *QNMR) { q.MAnalyte = math.NaN() },
+		// Terms finite on their own but whose product overflows: an error,
+		// never +Inf (which JSON cannot encode).
+		func(q *QNMR) { q.MassStandardMg, q.MassAnalyteMg, q.IntegralStandard = 1e308, 1e-308, 1e-308 },
+		func(q *QNMR) { q.MassStandardMg = math.Inf(1) },
 	} {
 		qq := q
 		bad(&qq)
 		if _, err := QNMRPurity(qq); err == nil {
 			t.Errorf("no error for %+v", qq)
+		}
+	}
+}
+
+// TestStandardValidate: weighed masses must be finite and between
+// MinMassMg and MaxMassMg, the purity in (0, 100] %, the signal within
+// ±MaxStandardPPM (bounds: common practice, no source).
+func TestStandardValidate(t *testing.T) {
+	t.Parallel()
+	ok := Standard{Smiles: "COc1cc(OC)cc(OC)c1", MassMg: 5, SampleMassMg: 15, PurityPct: 99.9}
+	if err := ok.Validate(); err != nil {
+		t.Fatalf("valid standard: %v", err)
+	}
+	for _, tc := range []struct {
+		mod  func(*Standard)
+		want string
+	}{
+		{func(s *Standard) { s.MassMg = 1e308 }, "standard mass must be between 0.001 and 10000 mg"},
+		{func(s *Standard) { s.SampleMassMg = 1e-308 }, "sample mass must be"},
+		{func(s *Standard) { s.SampleMassMg = math.NaN() }, "sample mass must be"},
+		{func(s *Standard) { s.MassMg = math.Inf(1) }, "standard mass must be"},
+		{func(s *Standard) { s.MassMg = 0 }, "standard mass must be"},
+		{func(s *Standard) { s.PurityPct = 0 }, "purity must be in (0, 100]"},
+		{func(s *Standard) { s.PurityPct = 100.01 }, "purity must be"},
+		{func(s *Standard) { s.PurityPct = math.NaN() }, "purity must be"},
+		{func(s *Standard) { s.SignalPPM = math.NaN() }, "signal must be within"},
+		{func(s *Standard) { s.SignalPPM = 1e9 }, "signal must be within"},
+		{func(s *Standard) { s.MassUncertaintyMg = math.Inf(1) }, "mass uncertainty"},
+		{func(s *Standard) { s.IntegralUncertainty = -0.1 }, "integral uncertainty"},
+		{func(s *Standard) { s.Smiles = "" }, "no structure"},
+	} {
+		st := ok
+		tc.mod(&st)
+		err := st.Validate()
+		if err == nil || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("%+v: error %v, want %q", st, err, tc.want)
+		}
+		if _, err := Check(Input{Smiles: "CCC(C)=O", Peaks: butanonePeaks(), Standard: &st}, Options{Predictor: handPredictor(t)}); err == nil {
+			t.Errorf("%+v: Check accepted the standard", st)
 		}
 	}
 }

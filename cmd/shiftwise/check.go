@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"path/filepath"
 	"strings"
 	"text/tabwriter"
@@ -66,7 +67,16 @@ inflate them.
 
 qNMR: with --standard SMILES --standard-mass MG --sample-mass MG
 --standard-purity PCT the mass purity of the sample is computed with the
-internal-standard qNMR equation and an uncertainty estimate.
+internal-standard qNMR equation and an uncertainty estimate. Masses are
+0.001-10000 mg, the purity in (0, 100] %. --standard-signal PPM picks the
+standard's signal (within 0.1 ppm); when the standard or that signal is not
+found, there is no qNMR result and the verdict is at least review, with the
+reason.
+
+Structures given to --smiles, --candidate, --impurity and --standard are all
+parsed before any work: a bad one is a usage error naming the flag and its
+position (--candidate 2) with the column and a caret. --field, when given, is
+the observe frequency in MHz, 1-10000.
 
 Output is a table on a terminal, tab-separated lines when piped, or JSON
 (--json) with the keys verdict, score, reasons, assignments, unexplained,
@@ -89,7 +99,7 @@ func newCheckCmd(f *Factory) *cobra.Command {
 		},
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.spectrum = args[0]
-			return runCheck(f, o)
+			return runCheck(f, o, cmd.Flags().Changed)
 		},
 	}
 	fl := cmd.Flags()
@@ -110,35 +120,95 @@ func newCheckCmd(f *Factory) *cobra.Command {
 	return cmd
 }
 
-func (o *checkOptions) validate() error {
+// validate checks the flags before any work: structures parse (each
+// --candidate, --impurity and --standard named with its position and a
+// caret), numbers are finite and in range. set reports whether a flag was
+// given on the command line. Errors are usage errors (exit 1).
+func (o *checkOptions) validate(set func(name string) bool) error {
 	if strings.TrimSpace(o.smiles) == "" {
 		return errors.New("check: --smiles is required")
 	}
-	if o.field < 0 {
-		return fmt.Errorf("check: --field must be positive, found %g", o.field)
+	if err := checkField("check", o.field, set("field")); err != nil {
+		return err
 	}
-	q := o.standard != "" || o.standardMass != 0 || o.sampleMass != 0 || o.standardPurity != 0
-	if q {
-		if o.standard == "" || !(o.standardMass > 0) || !(o.sampleMass > 0) || !(o.standardPurity > 0) || o.standardPurity > 100 {
-			return errors.New("check: qNMR needs --standard SMILES, --standard-mass MG > 0, --sample-mass MG > 0 and --standard-purity PCT in (0, 100]")
+	if set("min-snr") && !(o.minSNR > 0 && o.minSNR <= maxMinSNR) {
+		return fmt.Errorf("check: --min-snr must be a number of noise SDs in (0, %g], found %v", maxMinSNR, o.minSNR)
+	}
+	if err := o.validateQNMR(set); err != nil {
+		return err
+	}
+	return o.validateStructures()
+}
+
+// maxMinSNR bounds --min-snr: a threshold beyond a million noise SDs picks
+// nothing on any real spectrum (common practice, no source).
+const maxMinSNR = 1e6
+
+// validateQNMR checks the qNMR flags: all four or none; each mass finite and
+// within compare's bounds (MinMassMg–MaxMassMg), the purity in (0, 100],
+// the standard's signal finite and within ±MaxStandardPPM.
+func (o *checkOptions) validateQNMR(set func(string) bool) error {
+	q := set("standard") || set("standard-mass") || set("sample-mass") || set("standard-purity") || set("standard-signal")
+	if !q {
+		return nil
+	}
+	if o.standard == "" || !set("standard-mass") || !set("sample-mass") || !set("standard-purity") {
+		return errors.New("check: qNMR needs --standard SMILES, --standard-mass MG, --sample-mass MG and --standard-purity PCT")
+	}
+	for _, m := range []struct {
+		flag string
+		v    float64
+	}{{"--standard-mass", o.standardMass}, {"--sample-mass", o.sampleMass}} {
+		if !(m.v >= compare.MinMassMg && m.v <= compare.MaxMassMg) {
+			return fmt.Errorf("check: %s must be a weighed mass in mg between %g and %g, found %v", m.flag, compare.MinMassMg, compare.MaxMassMg, m.v)
+		}
+	}
+	if !(o.standardPurity > 0 && o.standardPurity <= 100) {
+		return fmt.Errorf("check: --standard-purity must be a mass %% in (0, 100], found %v", o.standardPurity)
+	}
+	if !(math.Abs(o.standardSignal) <= compare.MaxStandardPPM) {
+		return fmt.Errorf("check: --standard-signal must be a shift in ppm within ±%g, found %v", compare.MaxStandardPPM, o.standardSignal)
+	}
+	return nil
+}
+
+// validateStructures parses every structure given (unless a test
+// substitutes the predictor): an empty or malformed SMILES is an error
+// naming the flag, its 1-based position among repeated flags, the column
+// and a caret.
+func (o *checkOptions) validateStructures() error {
+	type entry struct{ flag, smi string }
+	list := []entry{{"--smiles", o.smiles}}
+	for k, c := range o.candidates {
+		list = append(list, entry{fmt.Sprintf("--candidate %d", k+1), c})
+	}
+	for k, c := range o.impurities {
+		list = append(list, entry{fmt.Sprintf("--impurity %d", k+1), c})
+	}
+	if o.standard != "" {
+		list = append(list, entry{"--standard", o.standard})
+	}
+	for _, e := range list {
+		if strings.TrimSpace(e.smi) == "" {
+			return fmt.Errorf("check: %s: empty SMILES", e.flag)
+		}
+		if o.predictor != nil {
+			continue
+		}
+		if _, err := smiles.Parse(e.smi); err != nil {
+			return fmt.Errorf("check: %s: %w", e.flag, checkSmilesError(e.smi, err))
 		}
 	}
 	return nil
 }
 
-func runCheck(f *Factory, o *checkOptions) error {
-	if err := o.validate(); err != nil {
-		return withCode(exitError, err)
+// runCheck runs a check; set reports whether a flag was given (nil: none).
+func runCheck(f *Factory, o *checkOptions, set func(string) bool) error {
+	if set == nil {
+		set = func(string) bool { return false }
 	}
-	if o.predictor == nil {
-		for _, smi := range append([]string{o.smiles, o.standard}, o.impurities...) {
-			if smi == "" {
-				continue
-			}
-			if _, err := smiles.Parse(smi); err != nil {
-				return withCode(exitError, checkSmilesError(smi, err))
-			}
-		}
+	if err := o.validate(set); err != nil {
+		return withCode(exitError, err)
 	}
 	in := compare.Input{Smiles: o.smiles, SpectrumPath: o.spectrum, Candidates: o.candidates, Impurities: o.impurities}
 	if o.standard != "" {
@@ -180,20 +250,20 @@ func runCheck(f *Factory, o *checkOptions) error {
 }
 
 // checkSmilesError formats a SMILES error with the input and a caret under
-// the offending column.
+// the offending column, for every error found (as predict does).
 func checkSmilesError(src string, err error) error {
-	pos := -1
 	if l, ok := smiles.AsList(err); ok && len(l) > 0 {
-		pos = l[0].Pos
+		parts := make([]string, len(l))
+		for i, e := range l {
+			parts[i] = fmt.Sprintf("%v\n%s", e, smiles.Caret(src, e.Pos))
+		}
+		return errors.New(strings.Join(parts, "\n"))
 	}
 	var ae *graph.AtomError
-	if pos < 0 && errors.As(err, &ae) {
-		pos = ae.Pos
+	if errors.As(err, &ae) {
+		return fmt.Errorf("%v\n%s", err, smiles.Caret(src, ae.Pos))
 	}
-	if pos < 0 {
-		return fmt.Errorf("check: %s: %w", src, err)
-	}
-	return fmt.Errorf("check: %v\n%s", err, smiles.Caret(src, pos))
+	return fmt.Errorf("%s: %w", src, err)
 }
 
 func fmtPtr(p *float64, unit string) string {

@@ -20,9 +20,20 @@ import (
 // memory), TMS 0, Lorentzian lines of 1 Hz, seeded noise.
 func butanoneJCAMP(t *testing.T) string {
 	t.Helper()
+	return butanoneWithJCAMP(t, nil)
+}
+
+// specLine is a singlet of a synthetic spectrum: shift and area in H.
+type specLine struct{ ppm, area float64 }
+
+// butanoneWithJCAMP is butanoneJCAMP with extra singlets (e.g. an internal
+// standard).
+func butanoneWithJCAMP(t *testing.T, extra []specLine) string {
+	t.Helper()
 	const field, n, lo, hi = 400.0, 32768, -0.5, 10.5
-	type ln struct{ ppm, area float64 }
+	type ln = specLine
 	lines := []ln{{0, 0.3}, {7.26, 0.2}, {2.14, 3}}
+	lines = append(lines, extra...)
 	for k, w := range []float64{1, 2, 1} {
 		lines = append(lines, ln{1.06 + (float64(k)-1)*7.3/field, 3 * w / 4})
 	}
@@ -151,5 +162,98 @@ func TestCheckCommandQNMR(t *testing.T) {
 	}
 	if !strings.Contains(strings.Join(res.Warnings, " "), "qNMR") {
 		t.Errorf("no qNMR warning: %v", res.Warnings)
+	}
+}
+
+// TestCheckCommandFlagErrors: bad structures and out-of-range numbers in
+// the flags are usage errors (exit 1) naming the flag and, for repeated
+// flags, its 1-based position, with the SMILES error and caret; they are
+// found before any work (the spectrum path here does not exist, so a later
+// check would report the file instead).
+func TestCheckCommandFlagErrors(t *testing.T) {
+	none := filepath.Join(t.TempDir(), "none.jdx")
+	main := []string{"--smiles", "CCOC(=O)c1ccc(OC)cc1", none}
+	qnmr := func(std, smass, purity string) []string {
+		return append(append([]string{}, main...), "--standard", "COc1cc(OC)cc(OC)c1", "--standard-mass", std, "--sample-mass", smass, "--standard-purity", purity)
+	}
+	for _, tc := range []struct {
+		name string
+		args []string
+		msg  string
+	}{
+		{"bad candidate", append(append([]string{}, main...), "--candidate", "C("),
+			"check: --candidate 1: smiles: col 2: unbalanced parenthesis: '(' is never closed (SMILES may be truncated)\nC(\n ^"},
+		{"second candidate", append(append([]string{}, main...), "--candidate", "CCO", "--candidate", "CC1"), "check: --candidate 2: smiles: col 3: unclosed ring bond 1"},
+		{"empty impurity", append(append([]string{}, main...), "--impurity", ""), "check: --impurity 1: empty SMILES"},
+		{"blank impurity", append(append([]string{}, main...), "--impurity", "  "), "check: --impurity 1: empty SMILES"},
+		{"second impurity", append(append([]string{}, main...), "--impurity", "CCO", "--impurity", "C1CC"),
+			"check: --impurity 2: smiles: col 2: unclosed ring bond 1 (SMILES may be truncated)\nC1CC\n ^"},
+		{"bad standard", append(qnmr("5", "15", "99.9")[:3:3], "--standard", "c1ccc1X", "--standard-mass", "5", "--sample-mass", "15", "--standard-purity", "99.9"), "check: --standard: smiles: col"},
+		{"bad main", []string{"--smiles", "CC(", none}, "check: --smiles: smiles: col 3"},
+		{"field zero", append(append([]string{}, main...), "--field", "0"), "--field must be the 1H observe frequency in MHz, between 1 and 10000"},
+		{"field NaN", append(append([]string{}, main...), "--field", "NaN"), "--field must be"},
+		{"field huge", append(append([]string{}, main...), "--field", "1e9"), "--field must be"},
+		{"min-snr NaN", append(append([]string{}, main...), "--min-snr", "NaN"), "--min-snr must be"},
+		// Masses must be finite, ≥ 0.001 mg and ≤ 10 g; purity in (0, 100]
+		// (compare.MinMassMg, MaxMassMg; common practice, no source).
+		{"mass huge", qnmr("1e308", "1e-308", "99"), "--standard-mass must be a weighed mass in mg between 0.001 and 10000, found 1e+308"},
+		{"mass swapped", qnmr("1e-308", "1e308", "99"), "--standard-mass must be"},
+		{"sample tiny", qnmr("5", "1e-308", "99"), "--sample-mass must be a weighed mass in mg between 0.001 and 10000, found 1e-308"},
+		{"sample NaN", qnmr("5", "NaN", "99"), "--sample-mass must be"},
+		{"mass Inf", qnmr("+Inf", "15", "99"), "--standard-mass must be"},
+		{"mass negative", qnmr("-5", "15", "99"), "--standard-mass must be"},
+		{"purity zero", qnmr("5", "15", "0"), "--standard-purity must be a mass % in (0, 100]"},
+		{"purity over", qnmr("5", "15", "100.5"), "--standard-purity must be"},
+		{"purity NaN", qnmr("5", "15", "NaN"), "--standard-purity must be"},
+		{"signal NaN", append(qnmr("5", "15", "99"), "--standard-signal", "NaN"), "--standard-signal must be a shift in ppm"},
+		{"signal alone", append(append([]string{}, main...), "--standard-signal", "6.1"), "qNMR needs"},
+	} {
+		code, out, errOut := runCheckCmd(tc.args, false)
+		if code != exitError || !strings.Contains(errOut, tc.msg) {
+			t.Errorf("%s: exit %d, stderr %q; want exit 1 with %q", tc.name, code, errOut, tc.msg)
+		}
+		if out != "" {
+			t.Errorf("%s: output on a usage error: %q", tc.name, out)
+		}
+	}
+}
+
+// TestCheckCommandStandardSignalAbsent: --standard-signal at a shift where
+// the standard has no signal gives no qNMR result, a review verdict (exit
+// 4) and a reason saying so; at the standard's own singlet the assay is
+// computed. 1,3,5-Trimethoxybenzene: ArH 6.09 s 3H, OCH3 3.77 s 9H
+// (handbook values, value from memory); 0.5 molecule per butanone molecule
+// here.
+func TestCheckCommandStandardSignalAbsent(t *testing.T) {
+	path := butanoneWithJCAMP(t, []specLine{{6.09, 1.5}, {3.77, 4.5}})
+	args := func(sig string) []string {
+		return []string{"--smiles", "CCC(C)=O", path, "--json", "--standard", "COc1cc(OC)cc(OC)c1",
+			"--standard-mass", "10", "--sample-mass", "20", "--standard-purity", "99.9", "--standard-signal", sig}
+	}
+	type result struct {
+		Verdict string   `json:"verdict"`
+		Reasons []string `json:"reasons"`
+		Purity  struct {
+			QNMRMassPercent *float64 `json:"qnmr_mass_percent"`
+		} `json:"purity"`
+	}
+	code, out, errOut := runCheckCmd(args("99"), false)
+	var r result
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatalf("exit %d: %v\n%s", code, err, errOut)
+	}
+	if code != exitReview || r.Verdict != "review" || r.Purity.QNMRMassPercent != nil ||
+		!strings.Contains(strings.Join(r.Reasons, "|"), "internal standard signal at 99.00 ppm not found; no qNMR result") {
+		t.Errorf("signal 99: exit %d, verdict %s, qNMR %v, reasons %q", code, r.Verdict, r.Purity.QNMRMassPercent, r.Reasons)
+	}
+	code, out, errOut = runCheckCmd(args("6.09"), false)
+	r = result{}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatalf("exit %d: %v\n%s", code, err, errOut)
+	}
+	// qNMR equation: n(butanone)/n(standard) = 2, so P = 2·(72.11/168.19)·(10/20)·99.9 = 42.83 %
+	// (molar masses from IUPAC standard atomic weights; hand-computed).
+	if code != exitOK || r.Purity.QNMRMassPercent == nil || math.Abs(*r.Purity.QNMRMassPercent-42.83) > 1 {
+		t.Errorf("signal 6.09: exit %d, verdict %s, qNMR %v, reasons %q", code, r.Verdict, r.Purity.QNMRMassPercent, r.Reasons)
 	}
 }
