@@ -66,12 +66,7 @@ func newDescribeCmd(f *Factory) *cobra.Command {
 		Use:   "describe SMILES",
 		Short: "Show formula, masses and proton environments of a structure",
 		Long:  describeLong,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return withCode(exitError, fmt.Errorf("describe: expected one SMILES argument, found %d", len(args)))
-			}
-			return nil
-		},
+		Args:  oneArg("describe", "SMILES argument"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.smiles = args[0]
 			return runDescribe(f, o)

@@ -99,12 +99,7 @@ func newPeaksCmd(f *Factory) *cobra.Command {
 		Use:   "peaks FILE",
 		Short: "Pick peaks, multiplets, integrals and J values of a measured spectrum",
 		Long:  peaksLong,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return withCode(exitError, fmt.Errorf("peaks: expected one spectrum file, found %d arguments", len(args)))
-			}
-			return nil
-		},
+		Args:  oneArg("peaks", "spectrum file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.file = args[0]
 			return runPeaks(f, o)

@@ -55,7 +55,7 @@ simulated exactly in auto mode.
 Output: a table on a terminal, tab-separated text when piped, or JSON with
 --json. --out writes the rendered spectrum as .csv (ppm,intensity), .jdx
 (JCAMP-DX) or a plot (.svg, .png).`,
-		Args: cobra.ExactArgs(1),
+		Args: oneArg("predict", "SMILES"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.Smiles = args[0]
 			if err := checkField("predict", o.Field, cmd.Flags().Changed("field")); err != nil {

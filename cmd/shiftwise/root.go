@@ -132,3 +132,15 @@ func checkField(cmd string, v float64, changed bool) error {
 	}
 	return nil
 }
+
+// oneArg returns an argument check for commands that take exactly one
+// positional argument (what names it in the message); a wrong count is a
+// usage error with exit status 1.
+func oneArg(command, what string) cobra.PositionalArgs {
+	return func(cmd *cobra.Command, args []string) error {
+		if len(args) != 1 {
+			return withCode(exitError, fmt.Errorf("%s: expected one %s, found %d arguments", command, what, len(args)))
+		}
+		return nil
+	}
+}

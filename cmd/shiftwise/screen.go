@@ -51,7 +51,7 @@ be checked).
 
 The automated results are advisory: release of material follows the lab's
 own procedures and qualified review.`,
-		Args: cobra.ExactArgs(1),
+		Args: oneArg("screen", "manifest file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.Manifest = args[0]
 			return runScreen(f, opts)

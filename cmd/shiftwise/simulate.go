@@ -88,12 +88,7 @@ func newSimulateCmd(f *Factory) *cobra.Command {
 		Use:   "simulate SPINS.toml",
 		Short: "Simulate the 1H spectrum of a spin system (exact or first-order)",
 		Long:  simulateLong,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return withCode(exitError, fmt.Errorf("simulate: expected one spin-system file, found %d arguments", len(args)))
-			}
-			return nil
-		},
+		Args:  oneArg("simulate", "spin-system file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.file = args[0]
 			if err := checkField("simulate", o.fieldMHz, cmd.Flags().Changed("field")); err != nil {
