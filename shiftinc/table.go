@@ -15,6 +15,8 @@ import (
 	"sync"
 
 	"github.com/BurntSushi/toml"
+
+	"shiftwise/internal/fileerr"
 )
 
 //go:embed tables/*.toml
@@ -134,26 +136,7 @@ type Table struct {
 
 // Error is a problem in a table file: the file, the line (0 when unknown),
 // the key involved and a message. It prints as "file:line: key: msg".
-type Error struct {
-	File string
-	Line int
-	Key  string
-	Msg  string
-}
-
-func (e *Error) Error() string {
-	var b strings.Builder
-	b.WriteString(e.File)
-	if e.Line > 0 {
-		fmt.Fprintf(&b, ":%d", e.Line)
-	}
-	b.WriteString(": ")
-	if e.Key != "" {
-		fmt.Fprintf(&b, "%s: ", e.Key)
-	}
-	b.WriteString(e.Msg)
-	return b.String()
-}
+type Error = fileerr.Error
 
 var (
 	defaultOnce  sync.Once

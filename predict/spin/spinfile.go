@@ -12,6 +12,8 @@ import (
 	"strings"
 
 	"github.com/BurntSushi/toml"
+
+	"shiftwise/internal/fileerr"
 )
 
 // File is a spin-system file: a small TOML description of groups and
@@ -40,29 +42,9 @@ type File struct {
 	System      System
 }
 
-// FileError is an error at a line of a spin-system file. Line is 1-based
-// (0 when unknown); Key names the offending key, e.g. "group[2].count".
-type FileError struct {
-	File string
-	Line int
-	Key  string
-	Msg  string
-}
-
-// Error reads "file:line: key: msg".
-func (e *FileError) Error() string {
-	var b strings.Builder
-	b.WriteString(e.File)
-	if e.Line > 0 {
-		fmt.Fprintf(&b, ":%d", e.Line)
-	}
-	b.WriteString(": ")
-	if e.Key != "" {
-		b.WriteString(e.Key + ": ")
-	}
-	b.WriteString(e.Msg)
-	return b.String()
-}
+// FileError is an error at a line of a spin-system file (file, line, key,
+// message), printed as "file:line: key: msg".
+type FileError = fileerr.Error
 
 // FileErrors is a list of errors in one file, sorted by line.
 type FileErrors []*FileError
