@@ -76,7 +76,23 @@
 //
 // Verdict: inconsistent when m > 0.10, when more than 20 % of the H sit
 // more than 4 SD from their multiplet, when the integral score is below
-// 0.60, or when the score is below 0.50. Review when
+// 0.60, when the score is below 0.50, or when the structure is clearly
+// another compound's:
+//
+//   - less than 60 % of the measured intensity is explained (the explained
+//     part score: structure, residual solvent, water, given impurities and
+//     table contaminants; residual solvent, TMS and artifacts left out of
+//     the total): most of the tube holds something else;
+//   - two or more non-exchangeable signals, or at least 30 % of the
+//     non-exchangeable H, fit grossly badly: missing, more than 3 SD from
+//     their multiplet, of a clearly different multiplicity (cost ≥ 1.5)
+//     and more than 2 SD away, or given a multiplet that holds at most
+//     60 % of their H in a region short of a proton (in a region that
+//     integrates right, a short multiplet is an assignment slip, not a
+//     missing proton). One such signal is a review, several a different
+//     compound.
+//
+// Review when
 //
 //   - any signal is missing or more than 3 SD away;
 //   - two or more signals (or over 20 % of the H) have a clearly different

@@ -242,6 +242,15 @@ func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
 		rs = append(rs, fmt.Sprintf("unexplained peaks hold %.0f %% of the measured intensity%s", u, ev.largestUnknown()))
 		review = true
 	}
+	if ev.ex.total > 0 && p.Explained < minExplained {
+		rs = append(rs, fmt.Sprintf("only %.0f %% of the measured intensity is explained (structure, solvent, water, known impurities; %.0f %% needed)",
+			100*p.Explained, 100*minExplained))
+		incons = true
+	}
+	if why := ev.grossMisfits(nonExch); why != "" {
+		rs = append(rs, why)
+		incons = true
+	}
 	switch {
 	case incons || ev.score < inconsistentScore:
 		ev.verdict = Inconsistent

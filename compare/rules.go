@@ -38,7 +38,87 @@ const (
 	// reviewSplitting: a splitting score below this (labels and trace
 	// shapes agree poorly over the whole structure) asks for review.
 	reviewSplitting = 0.50
+	// minExplained: when the structure, residual solvent, water, the
+	// given impurities and table contaminants together explain less than
+	// this fraction of the measured intensity (residual solvent, TMS and
+	// artifacts left out of the total), most of the sample is something
+	// else: inconsistent.
+	minExplained = 0.60
+	// Gross misfits (grossMisfits): a non-exchangeable signal missing, more
+	// than poorZ SD from its multiplet, given a multiplet holding at most
+	// hostShortFrac of its H in a region short of a proton (regionOff), or
+	// of a clearly different multiplicity
+	// (cost ≥ clearMultCost) more than misfitZ SD away. maxMisfits such
+	// signals, or maxMisfitFrac of the non-exchangeable H, make the
+	// structure inconsistent: one bad signal is a review, several are a
+	// different compound.
+	maxMisfits    = 2
+	maxMisfitFrac = 0.30
+	misfitZ       = 2.0
+	clearMultCost = 1.5
 )
+
+// misfit names why non-exchangeable signal i fits grossly badly, or ""
+// (the rule of grossMisfits). want is the non-exchangeable H given to each
+// multiplet.
+func (ev *evaluation) misfit(i int, want map[int]float64) string {
+	s := ev.pred.Signals[i]
+	j := ev.sigM[i]
+	switch {
+	case s.Exchangeable:
+		return ""
+	case j < 0:
+		return fmt.Sprintf("%s %.2f %s (%d H) missing", s.Label, s.ShiftPPM, orM(s.Multiplicity), s.NH)
+	case ev.z[i] > poorZ:
+		return fmt.Sprintf("%s %.2f (%d H) %.1f SD from %.2f", s.Label, s.ShiftPPM, s.NH, ev.z[i], ev.ms[j].ppm)
+	case ev.ms[j].area*ev.scale <= hostShortFrac*want[j] && ev.regionShortAt(s.ShiftPPM):
+		return fmt.Sprintf("%s %.2f (%d H): %.2f holds %.1f H of %.0f", s.Label, s.ShiftPPM, s.NH, ev.ms[j].ppm, ev.ms[j].area*ev.scale, want[j])
+	case ev.mc[i] >= clearMultCost && ev.z[i] > misfitZ:
+		return fmt.Sprintf("%s %.2f %s (%d H): measured %.2f %s, %.1f SD", s.Label, s.ShiftPPM, orM(s.Multiplicity), s.NH,
+			ev.ms[j].ppm, orM(ev.ms[j].mult), ev.z[i])
+	}
+	return ""
+}
+
+// regionShortAt reports whether the region (regions) of a predicted shift
+// integrates short of a proton at the review level (regionOff): a signal
+// whose multiplet is short counts as a misfit only then, since in a
+// crowded region a short multiplet is more often an assignment slip than
+// a missing proton.
+func (ev *evaluation) regionShortAt(ppm float64) bool {
+	for _, r := range regions {
+		if ppm >= r.lo && ppm < r.hi {
+			got, exp := ev.regionH(ev.ms, r.lo, r.hi)
+			return regionOff(got, exp)
+		}
+	}
+	return false
+}
+
+// grossMisfits returns the non-exchangeable signals that fit grossly badly
+// (misfit), their H and the reason when they make the structure
+// inconsistent (at least maxMisfits signals or maxMisfitFrac of the
+// non-exchangeable H), else "".
+func (ev *evaluation) grossMisfits(nonExch float64) string {
+	want := map[int]float64{}
+	for i, s := range ev.pred.Signals {
+		if j := ev.sigM[i]; j >= 0 && !s.Exchangeable {
+			want[j] += float64(s.NH)
+		}
+	}
+	var names []string
+	h := 0.0
+	for i, s := range ev.pred.Signals {
+		if why := ev.misfit(i, want); why != "" {
+			names = append(names, why)
+			h += float64(s.NH)
+		}
+	}
+	if len(names) < maxMisfits && !(nonExch > 0 && h >= maxMisfitFrac*nonExch) {
+		return ""
+	}
+	return fmt.Sprintf("%d signals (%.0f of %.0f H) do not fit: %s", len(names), h, nonExch, strings.Join(names, "; "))
+}
 
 // tableMultOK reports whether a measured multiplet can be a table signal of
 // multiplicity tab: a tabulated singlet cannot be a measured resolved

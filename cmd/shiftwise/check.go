@@ -48,6 +48,13 @@ satellites, the --impurity structures), estimates purity and gives a verdict:
   review         a person must look (reasons are listed)      exit status 4
   usage or input error                                        exit status 1
 
+Inconsistent, among other rules: less than 60 % of the measured intensity
+(residual solvent, TMS and artifacts left out) explained by the structure,
+solvent, water and known impurities; or two or more non-exchangeable signals
+(or 30 % of their H) missing, more than 3 SD away, of a clearly different
+multiplicity more than 2 SD away, or in a multiplet holding at most 60 % of
+their H where the region is short of a proton.
+
 Among the rules for review: a signal missing or more than 3 SD away; a
 region (below 3, 3-6.3, 6.3-9, above 9 ppm) short by 1 H and 20 % or more
 with a multiplet holding at most 60 % of its H; unexplained peaks above 10 %
