@@ -39,9 +39,9 @@ import (
 // Regression limits below are the level reached (commit of the test) plus
 // a small margin; tighten them when the tables improve.
 const (
-	maxMAECDCl3 = 0.215 // ppm, CDCl3 records, non-exchangeable (reached 0.198)
-	maxMAEAll   = 0.330 // ppm, all records, non-exchangeable (reached 0.306)
-	minCoverage = 0.64  // fraction of |error| ≤ SD, all records, non-exchangeable (reached 0.681)
+	maxMAECDCl3 = 0.210 // ppm, CDCl3 records, non-exchangeable (reached 0.194)
+	maxMAEAll   = 0.325 // ppm, all records, non-exchangeable (reached 0.303)
+	minCoverage = 0.64  // fraction of |error| ≤ SD, all records, non-exchangeable (reached 0.687)
 	maxMAEExch  = 1.85  // ppm, all records, exchangeable O–H/N–H/S–H (reached 1.73)
 )
 

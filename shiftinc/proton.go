@@ -124,6 +124,10 @@ func (t *Table) carbon(v *view, p graph.Proton, a *acc) {
 	case v.carbonyl(c) || v.doubleTo(c, "N") >= 0:
 		t.formyl(v, c, a)
 	case v.doubleTo(c, "C") >= 0:
+		if r := t.row("base", "cyclooctatetraene"); r != nil && v.cotRing(c) {
+			a.base("cyclooctatetraene ring (tub, not conjugated)", r)
+			return
+		}
 		if !t.vinyl(v, p, a) {
 			if r := t.row("base", "allene"); r != nil && v.m.Hybridization(c) == 1 {
 				a.base("allene =CH", r)
@@ -159,36 +163,11 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 		}
 		return r.CH
 	}
-	type inc struct {
-		key      string
-		val, sd  float64
-		damp     float64
-		fallback bool
-	}
-	var alpha []inc
+	var alpha, beta []inc
+	nHetero := 0
 	for _, x := range v.nbrs(c) {
 		if v.el(x) == "C" && !v.arom1(x) && v.m.Hybridization(x) == 3 {
-			// Alkyl neighbour: no α increment; its substituents act as β.
-			for _, y := range v.nbrs(x) {
-				if y == c {
-					continue
-				}
-				keys := v.classify(x, y)
-				if keys[len(keys)-2] == "alkyl" {
-					continue
-				}
-				if v.h(x) == 0 {
-					// On a quaternary carbon (tert-butyl esters,
-					// carbamates, amides) some β effects are larger.
-					keys = append([]string{keys[0] + "-tert"}, keys...)
-				}
-				r := t.lookup("beta", keys)
-				if r.Key == "alkyl" {
-					continue
-				}
-				a.low = a.low || r.Key == "other"
-				a.add("β-"+r.Key, pick(r), r.SD)
-			}
+			beta = append(beta, t.betaIncs(v, c, x, pick)...)
 			continue
 		}
 		keys := v.classify(c, x)
@@ -196,12 +175,79 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 			keys = append([]string{"C=C-conj"}, keys...)
 		}
 		r := t.lookup("alpha", keys)
-		damp := t.Params.AlphaDamping
+		in := inc{key: r.Key, val: pick(r), sd: r.SD, damp: t.Params.AlphaDamping,
+			fallback: r.Key == "other", group: v.alphaGroup(x, r.Key)}
 		if r.Damping != nil {
-			damp = *r.Damping
+			in.damp = *r.Damping
 		}
-		alpha = append(alpha, inc{r.Key, pick(r), r.SD, damp, r.Key == "other"})
+		in.like = in.damp
+		switch {
+		case r.DampingLike != nil:
+			in.like = *r.DampingLike
+		case in.group == "O/N" && t.Params.DonorDamping > 0:
+			in.like = t.Params.DonorDamping
+		}
+		if in.group == "O/N" || in.group == "halogen" {
+			nHetero++
+		}
+		alpha = append(alpha, in)
 	}
+	for _, in := range beta {
+		label, val := "β-"+in.key, in.val
+		if nHetero > 0 && t.Params.BetaDamping > 0 && t.Params.BetaDamping != 1 {
+			f := math.Pow(t.Params.BetaDamping, float64(nHetero))
+			val *= f
+			label += fmt.Sprintf(" (×%.2g: α heteroatom)", f)
+		}
+		a.low = a.low || in.fallback
+		a.add(label, val, in.sd)
+	}
+	t.addAlpha(alpha, a)
+	t.smallRing(v, c, a)
+}
+
+// inc is one α or β increment before damping.
+type inc struct {
+	key      string
+	val, sd  float64
+	damp     float64 // factor when a larger α increment of another group precedes
+	like     float64 // factor per larger α increment of the same group
+	group    string  // "halogen", "O/N", "aryl" or ""
+	fallback bool
+}
+
+// betaIncs returns the β increments of the substituents on the sp3
+// neighbour x of c.
+func (t *Table) betaIncs(v *view, c, x int, pick func(*Row) float64) []inc {
+	var out []inc
+	for _, y := range v.nbrs(x) {
+		if y == c {
+			continue
+		}
+		keys := v.classify(x, y)
+		if keys[len(keys)-2] == "alkyl" {
+			continue
+		}
+		if v.h(x) == 0 {
+			// On a quaternary carbon (tert-butyl esters, carbamates,
+			// amides) some β effects are larger.
+			keys = append([]string{keys[0] + "-tert"}, keys...)
+		}
+		r := t.lookup("beta", keys)
+		if r.Key == "alkyl" {
+			continue
+		}
+		out = append(out, inc{key: r.Key, val: pick(r), sd: r.SD, fallback: r.Key == "other"})
+	}
+	return out
+}
+
+// addAlpha adds the α increments, largest first. The largest counts
+// fully; each further one is multiplied by its like factor once per
+// larger increment of its own group (CH2Cl2, CHCl3, acetals, Ph3CH) and,
+// when a larger increment of another group precedes it, once by its
+// damping (PhCH2Cl, ClCH2OMe).
+func (t *Table) addAlpha(alpha []inc, a *acc) {
 	slices.SortStableFunc(alpha, func(p, q inc) int {
 		switch {
 		case p.val > q.val:
@@ -214,14 +260,46 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 	for i, in := range alpha {
 		val := in.val
 		label := "α-" + in.key
-		if i > 0 && val > 0 && in.damp != 1 {
-			val *= in.damp
-			label += fmt.Sprintf(" (×%.2g)", in.damp)
+		if i > 0 && val > 0 {
+			nLike := 0
+			for _, p := range alpha[:i] {
+				if in.group != "" && p.group == in.group {
+					nLike++
+				}
+			}
+			f := math.Pow(in.like, float64(nLike))
+			if nLike < i {
+				f *= in.damp
+			}
+			if f != 1 {
+				val *= f
+				label += fmt.Sprintf(" (×%.2g)", f)
+			}
 		}
 		a.low = a.low || in.fallback
 		a.add(label, val, in.sd)
 	}
-	t.smallRing(v, c, a)
+}
+
+// alphaGroup names the group of α substituent x for the like-damping of
+// addAlpha: "halogen", "O/N" (O- or N-bound with a lone pair: ethers,
+// alcohols, esters, amines, amides, azoles), "aryl", or "".
+func (v *view) alphaGroup(x int, key string) string {
+	switch v.el(x) {
+	case "F", "Cl", "Br", "I":
+		return "halogen"
+	case "O":
+		return "O/N"
+	case "N":
+		if v.m.Atoms[x].Charge <= 0 && key != "NO2" && key != "N+" {
+			return "O/N"
+		}
+	case "C":
+		if v.arom1(x) {
+			return "aryl"
+		}
+	}
+	return ""
 }
 
 // smallRing adds the correction for the smallest ring holding c.
@@ -355,6 +433,29 @@ func ringSubstituted(v *view, r []int) bool {
 			if !slices.Contains(r, x) {
 				return true
 			}
+		}
+	}
+	return false
+}
+
+// cotRing reports whether c lies in a non-aromatic eight-membered ring of
+// carbons with four ring double bonds (cyclooctatetraene).
+func (v *view) cotRing(c int) bool {
+	for _, r := range v.rings {
+		if len(r) != 8 || !slices.Contains(r, c) {
+			continue
+		}
+		doubles := 0
+		for _, x := range r {
+			if v.el(x) != "C" || v.arom1(x) {
+				doubles = -100
+			}
+			if y := v.doubleTo(x, "C"); y >= 0 && slices.Contains(r, y) {
+				doubles++
+			}
+		}
+		if doubles == 8 { // each of the four bonds counted from both ends
+			return true
 		}
 	}
 	return false

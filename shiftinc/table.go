@@ -43,7 +43,11 @@ type Row struct {
 	// Damping, in alpha rows, replaces params.alpha_damping for this
 	// substituent when it is not the largest α increment on the carbon.
 	Damping *float64 `toml:"damping"`
-	Source  string   `toml:"source"`
+	// DampingLike, in alpha rows, is the factor for each larger α
+	// substituent of the same group (halogen, O/N-bound, aryl) on the
+	// carbon (CH2X2, CHX3, Ar2CH2); it may exceed 1 (aryl). Unset: Damping.
+	DampingLike *float64 `toml:"damping_like"`
+	Source      string   `toml:"source"`
 
 	// BySolvent gives solvent-specific values (exchangeable rows), keyed by
 	// normalised solvent name.
@@ -68,10 +72,12 @@ type SolventValue struct {
 
 // Params are the global parameters of the scheme.
 type Params struct {
-	AlphaDamping float64 `toml:"alpha_damping"` // factor on the 2nd, 3rd … α increment
-	ModelSD      float64 `toml:"model_sd"`      // added in quadrature to every estimate
-	Hetero6Scale float64 `toml:"hetero6_scale"` // benzene increments on 6-membered heteroaromatics
-	Hetero5Scale float64 `toml:"hetero5_scale"` // … on 5-membered heteroaromatics
+	AlphaDamping float64 `toml:"alpha_damping"`       // factor on the 2nd, 3rd … α increment
+	DonorDamping float64 `toml:"alpha_damping_donor"` // … of an O/N substituent per larger O/N one (acetals)
+	BetaDamping  float64 `toml:"beta_damping"`        // factor on β increments at a carbon with an α heteroatom
+	ModelSD      float64 `toml:"model_sd"`            // added in quadrature to every estimate
+	Hetero6Scale float64 `toml:"hetero6_scale"`       // benzene increments on 6-membered heteroaromatics
+	Hetero5Scale float64 `toml:"hetero5_scale"`       // … on 5-membered heteroaromatics
 }
 
 // rawFile is the TOML schema of one table file.
@@ -273,10 +279,12 @@ func (t *Table) Merge(r io.Reader, name string) error {
 }
 
 var paramNames = map[string]func(*Params) *float64{
-	"alpha_damping": func(p *Params) *float64 { return &p.AlphaDamping },
-	"model_sd":      func(p *Params) *float64 { return &p.ModelSD },
-	"hetero6_scale": func(p *Params) *float64 { return &p.Hetero6Scale },
-	"hetero5_scale": func(p *Params) *float64 { return &p.Hetero5Scale },
+	"alpha_damping":       func(p *Params) *float64 { return &p.AlphaDamping },
+	"alpha_damping_donor": func(p *Params) *float64 { return &p.DonorDamping },
+	"beta_damping":        func(p *Params) *float64 { return &p.BetaDamping },
+	"model_sd":            func(p *Params) *float64 { return &p.ModelSD },
+	"hetero6_scale":       func(p *Params) *float64 { return &p.Hetero6Scale },
+	"hetero5_scale":       func(p *Params) *float64 { return &p.Hetero5Scale },
 }
 
 func (t *Table) addParams(ps map[string]float64, name string, lines lineIndex) error {
@@ -319,6 +327,9 @@ func (t *Table) addRow(section string, row Row) error {
 	}
 	if d := row.Damping; d != nil && (math.IsNaN(*d) || *d < 0 || *d > 1) {
 		return fail("damping %g out of range [0, 1]", *d)
+	}
+	if d := row.DampingLike; d != nil && (math.IsNaN(*d) || *d < 0 || *d > 1.5) {
+		return fail("damping_like %g out of range [0, 1.5]", *d)
 	}
 	if math.IsNaN(row.SD) || row.SD < 0 || row.SD > 10 || math.IsNaN(row.ExtraSD) || row.ExtraSD < 0 || row.ExtraSD > 10 {
 		return fail("uncertainty out of range [0, 10]")
@@ -507,6 +518,8 @@ func overlay(base, upd Row, set map[string]any) Row {
 			out.Source = upd.Source
 		case "damping":
 			out.Damping = upd.Damping
+		case "damping_like":
+			out.DampingLike = upd.DampingLike
 		case "by_solvent":
 			out.BySolvent = upd.BySolvent
 		case "aliases":

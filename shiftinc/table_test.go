@@ -2,6 +2,7 @@ package shiftinc
 
 import (
 	"errors"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -61,6 +62,7 @@ func TestMergeErrors(t *testing.T) {
 		{"bad ring", "[[hetero]]\nkey = \"h\"\nring = \"c q c c c\"\nppm = 7\nsd = 0.1\nsource = \"s\"\n", "user.toml:1: hetero.h: ring:"},
 		{"bad solvent", "[[exchangeable]]\nkey = \"OH-alcohol\"\nppm = 2\nsd = 1\nsource = \"s\"\nby_solvent = { \"mud\" = { ppm = 1, sd = 1 } }\n", "unknown solvent"},
 		{"bad param", "[params]\nalpha_damping = 20\n", "user.toml:2: params.alpha_damping"},
+		{"bad damping_like", "[[alpha]]\nkey = \"Cl\"\ndamping_like = 2\n", "user.toml:1: alpha.Cl: damping_like 2 out of range"},
 		{"unknown param", "[params]\nwobble = 1\n", "user.toml:2: params.wobble: unknown parameter"},
 	}
 	for _, tc := range tests {
@@ -169,5 +171,31 @@ func TestConcurrentUse(t *testing.T) {
 		if r := <-done; len(r) == 0 {
 			t.Error("no estimates")
 		}
+	}
+}
+
+// TestDampingLikeOverride: a user row that sets only damping_like changes
+// the CH2X2/CHX3 estimates and nothing else of the row. With damping_like
+// = 1 chlorines are additive, so CHCl3 = CH base + 3 × the CH column
+// (arithmetic of the scheme, doc.go).
+func TestDampingLikeOverride(t *testing.T) {
+	tab := Default().Clone()
+	if err := tab.Merge(strings.NewReader("[[alpha]]\nkey = \"Cl\"\ndamping_like = 1\n"), "user.toml"); err != nil {
+		t.Fatal(err)
+	}
+	m, err := smiles.Parse("ClC(Cl)Cl")
+	if err != nil {
+		t.Fatal(err)
+	}
+	cl, base := tab.row("alpha", "Cl"), tab.row("base", "CH")
+	if cl.Source != Default().row("alpha", "Cl").Source || cl.CH != Default().row("alpha", "Cl").CH {
+		t.Errorf("override changed other fields: %+v", cl)
+	}
+	got := tab.Proton(m, graph.Proton{Atom: 1}, "CDCl3").PPM
+	if want := base.PPM + 3*cl.CH; math.Abs(got-want) > 1e-6 {
+		t.Errorf("CHCl3 with damping_like 1: %.3f, want %.3f", got, want)
+	}
+	if def := Default().Proton(m, graph.Proton{Atom: 1}, "CDCl3").PPM; def >= got {
+		t.Errorf("default %.3f should be below the additive %.3f", def, got)
 	}
 }
