@@ -5,6 +5,8 @@ import (
 	"testing"
 
 	"shiftwise/internal/synth"
+	"shiftwise/predict"
+	"shiftwise/smiles"
 )
 
 // At benchtop fields the phenyl multiplet of a monosubstituted benzene is a
@@ -36,5 +38,54 @@ func TestBenchtopPhenylWingsAndLoneSatellite(t *testing.T) {
 		if strings.Contains(f.Name, "benzene") {
 			t.Errorf("benzene named at %v", f.PPM)
 		}
+	}
+}
+
+// An acid OH that shows as a broad hump far from its predicted shift (here
+// moved to 8.3 ppm, against about 11–12 predicted) is still the acid
+// proton: exchangeable protons move with concentration and water and
+// broaden by exchange (common practice, no source). The spectrum holds
+// phenylacetic acid only, by construction, so the hump must be assigned to
+// the acid signal and nothing may be left unexplained there.
+func TestBroadAcidProtonAssigned(t *testing.T) {
+	const smi = "OC(=O)Cc1ccccc1"
+	m, err := smiles.Parse(smi)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := predict.Predict(m, smi, predict.Options{FieldMHz: 400, Solvent: "CDCl3"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	move := map[string]float64{}
+	acid := ""
+	for _, sg := range p.Signals {
+		if sg.Exchangeable {
+			acid, move[sg.Label] = sg.Label, 8.3-sg.ShiftPPM
+		}
+	}
+	if acid == "" {
+		t.Fatal("no exchangeable signal predicted for the acid")
+	}
+	s, err := synth.Make(synth.Recipe{Seed: 5, Satellites: true,
+		Components: []synth.Component{{Smiles: smi, Moles: 1, Shifts: move}}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Check(Input{Smiles: smi, Spectrum: s}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, u := range r.Unexplained {
+		if u.PPM > 8.1 && u.PPM < 8.5 && u.IntegralH > 0.3 {
+			t.Errorf("broad acid OH at %.2f ppm (%.2f H) left unexplained (%q)", u.PPM, u.IntegralH, u.Likely)
+		}
+	}
+	found := false
+	for _, a := range r.Assignments {
+		found = found || (a.Signal == acid && a.MeasuredPPM > 8.1 && a.MeasuredPPM < 8.5)
+	}
+	if !found {
+		t.Errorf("acid signal %s not assigned to the broad line at 8.3 ppm", acid)
 	}
 }

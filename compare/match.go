@@ -13,17 +13,23 @@ import (
 // synthetic reference set (see check_ref_test.go); their form is common
 // practice, no source.
 const (
-	minShiftSD      = 0.08 // ppm: floor of the shift uncertainty used in z
-	exchShiftSD     = 1.2  // ppm: exchangeable protons move with concentration and water
-	missCost        = 20   // a non-exchangeable signal left without counterpart
-	missCostExch    = 2    // an exchangeable signal not observed (broad/exchanged)
-	shareCost       = 1.5  // one more signal placed in an already used multiplet
-	multWeight      = 1.5  // weight of the multiplicity term
-	overWeight      = 4.0  // signal larger than the multiplet (log-ratio²)
-	underWeight     = 1.5  // multiplet larger than the signal (log-ratio²)
-	forbidden       = 1e6  // cost of an impossible pairing
-	solventCost     = 4    // a compound signal placed under the residual solvent peak
-	scaleIterations = 3
+	minShiftSD   = 0.08 // ppm: floor of the shift uncertainty used in z
+	exchShiftSD  = 1.2  // ppm: exchangeable protons move with concentration and water
+	missCost     = 20   // a non-exchangeable signal left without counterpart
+	missCostExch = 2    // an exchangeable signal not observed (broad/exchanged)
+	// An exchangeable proton (OH, NH, COOH) wanders further than its SD when
+	// it shows as a broad line: its window doubles for broad multiplets
+	// (common practice, no source: OH/NH shifts depend on concentration,
+	// water and temperature, and exchange broadens them).
+	exchBroadSDFactor = 2.0
+	broadLineHz       = 5.0 // a single line at least this wide counts as broad (sharp lines are about 1 Hz)
+	shareCost         = 1.5 // one more signal placed in an already used multiplet
+	multWeight        = 1.5 // weight of the multiplicity term
+	overWeight        = 4.0 // signal larger than the multiplet (log-ratio²)
+	underWeight       = 1.5 // multiplet larger than the signal (log-ratio²)
+	forbidden         = 1e6 // cost of an impossible pairing
+	solventCost       = 4   // a compound signal placed under the residual solvent peak
+	scaleIterations   = 3
 )
 
 // mplet is a measured multiplet prepared for matching.
@@ -128,6 +134,15 @@ func signalSD(s predict.Signal) float64 {
 	return math.Max(sd, minShiftSD)
 }
 
+// broadLine reports whether a multiplet is one broad line (a singlet whose
+// width is at least broadLineHz).
+func broadLine(m mplet) bool {
+	if len(m.pk) != 1 {
+		return false
+	}
+	return m.pk[0].WidthHz >= broadLineHz
+}
+
 // shiftDistance is how far the predicted shift lies from a multiplet: the
 // distance to its centre less 40 % of its width (a wide multiplet holds
 // signals spread across it).
@@ -210,6 +225,9 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 		for c, cl := range cols {
 			m := ms[cl.m]
 			z := shiftDistance(s.ShiftPPM, m) / sd
+			if s.Exchangeable && broadLine(m) {
+				z /= exchBroadSDFactor // a broad line is the mark of an exchanging proton
+			}
 			v := shiftCost(z) + float64(cl.k)*shareCost
 			if penalty != nil {
 				v += penalty[cl.m]

@@ -57,11 +57,12 @@ func Make(r Recipe) (*spectrum.Spectrum, error) {
 	r = r.defaults()
 	rng := rand.New(rand.NewPCG(r.Seed, 0x5eed))
 	all := &predict.Prediction{FieldMHz: r.FieldMHz}
-	for _, c := range r.Components {
-		ls, err := componentLines(c, r, rng)
+	for ci, c := range r.Components {
+		sigs, ls, err := componentLines(ci, c, r, rng)
 		if err != nil {
 			return nil, err
 		}
+		all.Signals = append(all.Signals, sigs...)
 		all.Lines = append(all.Lines, ls...)
 	}
 	all.Lines = append(all.Lines, solventLines(r)...)
@@ -110,15 +111,24 @@ func (r Recipe) defaults() Recipe {
 	return r
 }
 
-// componentLines predicts a component and scales and moves its lines.
-func componentLines(c Component, r Recipe, rng *rand.Rand) ([]predict.Line, error) {
+// componentLines predicts component number ci and scales and moves its
+// lines. Signal labels get the component's number ("0:A") so that the
+// signals of several components stay apart; exchangeable signals keep
+// their flag, so Render draws them broad as exchange does.
+func componentLines(ci int, c Component, r Recipe, rng *rand.Rand) ([]predict.Signal, []predict.Line, error) {
 	m, err := smiles.Parse(c.Smiles)
 	if err != nil {
-		return nil, fmt.Errorf("synth: %q: %w", c.Smiles, err)
+		return nil, nil, fmt.Errorf("synth: %q: %w", c.Smiles, err)
 	}
 	p, err := predict.Predict(m, c.Smiles, predict.Options{FieldMHz: r.FieldMHz, Solvent: r.Solvent})
 	if err != nil {
-		return nil, fmt.Errorf("synth: %q: %w", c.Smiles, err)
+		return nil, nil, fmt.Errorf("synth: %q: %w", c.Smiles, err)
+	}
+	tag := func(label string) string { return fmt.Sprintf("%d:%s", ci, label) }
+	sigs := make([]predict.Signal, len(p.Signals))
+	for i, sg := range p.Signals {
+		sg.Label = tag(sg.Label)
+		sigs[i] = sg
 	}
 	move := map[string]float64{}
 	for _, s := range p.Signals {
@@ -131,9 +141,10 @@ func componentLines(c Component, r Recipe, rng *rand.Rand) ([]predict.Line, erro
 	for _, l := range p.Lines {
 		l.PPM += move[l.Signal]
 		l.Intensity *= c.Moles
+		l.Signal = tag(l.Signal)
 		out = append(out, l)
 	}
-	return out, nil
+	return sigs, out, nil
 }
 
 // solventLines returns the residual solvent multiplet (the isotopomer pattern:
