@@ -8,6 +8,8 @@ import (
 	"sync"
 
 	"github.com/BurntSushi/toml"
+
+	"shiftwise/internal/solvent"
 )
 
 //go:embed tables/impurities.toml
@@ -69,30 +71,26 @@ func loadTable() (*impurityTable, error) {
 	return &table, tableErr
 }
 
-// foldName keeps letters and digits, upper-cased.
-func foldName(s string) string {
-	var b strings.Builder
-	for _, r := range strings.ToUpper(s) {
-		if (r >= 'A' && r <= 'Z') || (r >= '0' && r <= '9') {
-			b.WriteRune(r)
-		}
-	}
-	return b.String()
-}
-
 // LookupSolvent returns the table entry for a solvent in any common spelling
-// ("DMSO", "dmso-d6", "Acetone", "CHLOROFORM-D"); ok is false when the
-// solvent is not tabulated.
+// ("DMSO", "dmso-d6", "Acetone", "CHLOROFORM-D"); names are resolved with the
+// project's one spelling table (internal/solvent), then the table's own
+// aliases. ok is false when the solvent is not tabulated.
 func LookupSolvent(name string) (SolventInfo, bool) {
 	t, err := loadTable()
 	if err != nil || strings.TrimSpace(name) == "" {
 		return SolventInfo{}, false
 	}
-	key := foldName(name)
-	first := foldName(strings.FieldsFunc(name, func(r rune) bool { return r == ' ' || r == '+' || r == '(' || r == ',' })[0])
+	if canon, ok := solvent.Normalize(name); ok {
+		for _, s := range t.Solvents {
+			if s.Name == canon {
+				return s, true
+			}
+		}
+	}
+	key := solvent.Fold(name)
 	for _, s := range t.Solvents {
 		for _, a := range append([]string{s.Name}, s.Aliases...) {
-			if fa := foldName(a); fa == key || fa == first {
+			if solvent.Fold(a) == key {
 				return s, true
 			}
 		}
