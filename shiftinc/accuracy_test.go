@@ -39,10 +39,10 @@ import (
 // Regression limits below are the level reached (commit of the test) plus
 // a small margin; tighten them when the tables improve.
 const (
-	maxMAECDCl3 = 0.210 // ppm, CDCl3 records, non-exchangeable (reached 0.194)
+	maxMAECDCl3 = 0.210 // ppm, CDCl3 records, non-exchangeable (reached 0.195)
 	maxMAEAll   = 0.325 // ppm, all records, non-exchangeable (reached 0.303)
-	minCoverage = 0.64  // fraction of |error| ≤ SD, all records, non-exchangeable (reached 0.687)
-	maxMAEExch  = 1.85  // ppm, all records, exchangeable O–H/N–H/S–H (reached 1.73)
+	minCoverage = 0.64  // fraction of |error| ≤ SD, all records, non-exchangeable (reached 0.686)
+	maxMAEExch  = 1.85  // ppm, all records, exchangeable O–H/N–H/S–H (reached 1.727)
 )
 
 type shiftRow struct {

@@ -18,8 +18,7 @@
 //     N-bound groups (acetals, orthoesters, aminals: params.
 //     alpha_damping_donor unless the row sets damping_like) and aryl
 //     (Ar2CH2, Ar3CH: slightly growing). β increments on a carbon with α
-//     O, N or halogen substituents are multiplied by params.beta_damping
-//     once per such substituent. Cyclooctatetraene ring C–H (tub-shaped,
+//     halogens are multiplied by params.beta_damping once per α halogen. Cyclooctatetraene ring C–H (tub-shaped,
 //     not conjugated) takes the base row "cyclooctatetraene".
 //   - alkene C–H (tables/alkene.toml): δ = 5.25 + Z(gem) + Z(cis) +
 //     Z(trans), Pascual–Meier–Simon, with the substituent geometry taken

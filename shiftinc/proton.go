@@ -164,7 +164,7 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 		return r.CH
 	}
 	var alpha, beta []inc
-	nHetero := 0
+	nHal := 0
 	for _, x := range v.nbrs(c) {
 		if v.el(x) == "C" && !v.arom1(x) && v.m.Hybridization(x) == 3 {
 			beta = append(beta, t.betaIncs(v, c, x, pick)...)
@@ -187,17 +187,17 @@ func (t *Table) sp3(v *view, c int, a *acc) {
 		case in.group == "O/N" && t.Params.DonorDamping > 0:
 			in.like = t.Params.DonorDamping
 		}
-		if in.group == "O/N" || in.group == "halogen" {
-			nHetero++
+		if in.group == "halogen" {
+			nHal++
 		}
 		alpha = append(alpha, in)
 	}
 	for _, in := range beta {
 		label, val := "β-"+in.key, in.val
-		if nHetero > 0 && t.Params.BetaDamping > 0 && t.Params.BetaDamping != 1 {
-			f := math.Pow(t.Params.BetaDamping, float64(nHetero))
+		if nHal > 0 && t.Params.BetaDamping > 0 && t.Params.BetaDamping != 1 {
+			f := math.Pow(t.Params.BetaDamping, float64(nHal))
 			val *= f
-			label += fmt.Sprintf(" (×%.2g: α heteroatom)", f)
+			label += fmt.Sprintf(" (×%.2g: α halogen)", f)
 		}
 		a.low = a.low || in.fallback
 		a.add(label, val, in.sd)

@@ -186,6 +186,11 @@ func (v *view) ohKey(o int) string {
 			}
 			return "OH-alcohol"
 		case v.el(y) == "C":
+			for _, z := range v.nbrs(y) {
+				if z != o && v.el(z) == "O" && v.order(y, z) == 1 {
+					return "OH-hemiacetal"
+				}
+			}
 			return "OH-alcohol"
 		}
 	}

@@ -74,7 +74,7 @@ type SolventValue struct {
 type Params struct {
 	AlphaDamping float64 `toml:"alpha_damping"`       // factor on the 2nd, 3rd … α increment
 	DonorDamping float64 `toml:"alpha_damping_donor"` // … of an O/N substituent per larger O/N one (acetals)
-	BetaDamping  float64 `toml:"beta_damping"`        // factor on β increments at a carbon with an α heteroatom
+	BetaDamping  float64 `toml:"beta_damping"`        // factor on β increments per α halogen on the carbon
 	ModelSD      float64 `toml:"model_sd"`            // added in quadrature to every estimate
 	Hetero6Scale float64 `toml:"hetero6_scale"`       // benzene increments on 6-membered heteroaromatics
 	Hetero5Scale float64 `toml:"hetero5_scale"`       // … on 5-membered heteroaromatics
