@@ -89,7 +89,8 @@ func (sc *lineScanner) next() (kind tokKind, v float64, ok bool, msg string) {
 }
 
 // digits reads the digits that follow a pseudo-digit whose signed value is
-// first. Integers take a fast path; a decimal point goes through strconv.
+// first. Numbers of up to maxExactDigits digits are converted exactly by
+// hand; longer ones with a decimal point go through strconv.
 func (sc *lineScanner) digits(first int8, intOnly bool) (float64, string) {
 	s := sc.s
 	start := sc.pos
@@ -113,7 +114,15 @@ func (sc *lineScanner) digits(first int8, intOnly bool) (float64, string) {
 		return 0, "number with too many digits"
 	}
 	if i < len(s) && s[i] == '.' && !intOnly {
+		frac := 0
 		for sc.pos++; sc.pos < len(s) && isDigit(s[sc.pos]); sc.pos++ {
+			acc = acc*10 + int64(s[sc.pos]-'0')
+			frac++
+		}
+		if nd := 1 + (i - start) + frac; nd <= maxExactDigits {
+			// The leading digit, the digits before the point and frac
+			// after it: few enough for an exact conversion.
+			return exactDecimal(uint64(acc), frac, neg), ""
 		}
 		sc.buf = append(sc.buf[:0], byte('0'+lead))
 		sc.buf = append(sc.buf, s[start:sc.pos]...)
@@ -143,21 +152,25 @@ func (sc *lineScanner) affn() (float64, string) {
 		sc.pos++
 	}
 	digStart := sc.pos
-	var acc int64
-	n := 0
+	var mant uint64
+	n, frac := 0, 0 // digits read, digits after the point
 	for sc.pos < len(s) && isDigit(s[sc.pos]) {
 		if n < 18 {
-			acc = acc*10 + int64(s[sc.pos]-'0')
+			mant = mant*10 + uint64(s[sc.pos]-'0')
 		}
 		n++
 		sc.pos++
 	}
-	simple := n > 0 && n < 18
 	if sc.pos < len(s) && s[sc.pos] == '.' {
-		simple = false
 		for sc.pos++; sc.pos < len(s) && isDigit(s[sc.pos]); sc.pos++ {
+			if n < 18 {
+				mant = mant*10 + uint64(s[sc.pos]-'0')
+			}
+			n++
+			frac++
 		}
 	}
+	simple := n > 0
 	// An exponent is E or e followed by a sign and a digit; otherwise the
 	// letter is an SQZ pseudo-digit that starts the next token.
 	if sc.pos+2 < len(s) && (s[sc.pos] == 'E' || s[sc.pos] == 'e') &&
@@ -169,18 +182,35 @@ func (sc *lineScanner) affn() (float64, string) {
 	if sc.pos == digStart || (sc.pos == digStart+1 && s[digStart] == '.') {
 		return 0, "malformed number " + strconv.Quote(string(s[start:sc.pos]))
 	}
-	if simple {
-		v := float64(acc)
-		if neg {
-			v = -v
-		}
-		return v, ""
+	if simple && n <= maxExactDigits {
+		return exactDecimal(mant, frac, neg), ""
 	}
 	f, err := strconv.ParseFloat(string(s[start:sc.pos]), 64)
 	if err != nil || math.IsInf(f, 0) {
 		return 0, "malformed number " + strconv.Quote(string(s[start:sc.pos]))
 	}
 	return f, ""
+}
+
+// maxExactDigits is the most decimal digits exactDecimal takes: 10¹⁵ < 2⁵³,
+// so the digits form an exactly representable integer, and at most 15
+// digits after the point keep the power of ten exact too.
+const maxExactDigits = 15
+
+// pow10 holds the powers of ten that are exact in float64.
+var pow10 = [...]float64{1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15}
+
+// exactDecimal is ±mant·10⁻ᶠʳᵃᶜ for mant < 10¹⁵ and frac ≤ 15. Both operands
+// are exact, so the one correctly rounded division gives the correctly
+// rounded value, the same float64 that strconv.ParseFloat returns for the
+// text (which takes this path itself: Clinger 1990, "How to read floating
+// point numbers accurately", PLDI).
+func exactDecimal(mant uint64, frac int, neg bool) float64 {
+	f := float64(mant) / pow10[frac]
+	if neg {
+		f = -f
+	}
+	return f
 }
 
 // xyDecoder decodes the lines of an (X++(Y..Y)) table in any mix of AFFN

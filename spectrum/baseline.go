@@ -186,8 +186,13 @@ func estimateBaseline(y []float64, pointsPerPPM float64) baselineResult {
 		}
 	}
 	res := baselineResult{Z: interpolateBlocks(z, b, n), Free: make([]bool, n), Blocks: b}
-	for i := range res.Free {
-		res.Free[i] = w[i/b] > 0
+	for k, wk := range w {
+		if wk > 0 {
+			free := res.Free[k*b : min((k+1)*b, n)]
+			for i := range free {
+				free[i] = true
+			}
+		}
 	}
 	return res
 }
@@ -246,16 +251,17 @@ func interpolateBlocks(z []float64, b, n int) []float64 {
 	half := float64(b-1) / 2
 	for i := range out {
 		t := (float64(i) - half) / float64(b)
-		k := int(math.Floor(t))
-		switch {
-		case k < 0:
+		if t < 0 {
 			out[i] = z[0]
-		case k >= m-1:
-			out[i] = z[m-1]
-		default:
-			f := t - float64(k)
-			out[i] = z[k]*(1-f) + z[k+1]*f
+			continue
 		}
+		k := int(t) // = ⌊t⌋ for t ≥ 0
+		if k >= m-1 {
+			out[i] = z[m-1]
+			continue
+		}
+		f := t - float64(k)
+		out[i] = z[k]*(1-f) + z[k+1]*f
 	}
 	return out
 }

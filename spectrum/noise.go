@@ -2,7 +2,6 @@ package spectrum
 
 import (
 	"math"
-	"sort"
 )
 
 // Noise estimation.
@@ -35,24 +34,25 @@ func median(v []float64) float64 {
 	// The lower middle is the largest value left of position n/2.
 	lo := v[0]
 	for _, x := range v[1 : n/2] {
-		lo = math.Max(lo, x)
+		if x > lo {
+			lo = x
+		}
 	}
 	return (lo + hi) / 2
 }
 
 // selectKth reorders v so that v[k] holds the value it would have if v were
 // sorted, with no larger value before it and no smaller one after it, and
-// returns v[k] (Hoare's quickselect with a median-of-three pivot).
+// returns v[k] (Hoare's quickselect with a median-of-three pivot). The
+// values must not be NaN.
 func selectKth(v []float64, k int) float64 {
 	lo, hi := 0, len(v)-1
 	for hi > lo {
 		if hi-lo < 16 {
-			sort.Float64s(v[lo : hi+1])
+			insertionSort(v[lo : hi+1])
 			return v[k]
 		}
-		mid := lo + (hi-lo)/2
-		a, b, c := v[lo], v[mid], v[hi]
-		p := math.Max(math.Min(a, b), math.Min(math.Max(a, b), c))
+		p := median3(v[lo], v[lo+(hi-lo)/2], v[hi])
 		i, j := lo, hi
 		for i <= j {
 			for v[i] < p {
@@ -79,12 +79,44 @@ func selectKth(v []float64, k int) float64 {
 	return v[k]
 }
 
+// median3 is the middle one of a, b and c.
+func median3(a, b, c float64) float64 {
+	if a > b {
+		a, b = b, a
+	}
+	// Now a ≤ b: the middle is b unless c lies below it.
+	if c < b {
+		if c > a {
+			return c
+		}
+		return a
+	}
+	return b
+}
+
+// insertionSort sorts a short slice in place.
+func insertionSort(v []float64) {
+	for i := 1; i < len(v); i++ {
+		x := v[i]
+		j := i
+		for ; j > 0 && v[j-1] > x; j-- {
+			v[j] = v[j-1]
+		}
+		v[j] = x
+	}
+}
+
 // madSigma is the MAD estimate of σ for the values of v (v is not changed).
 func madSigma(v []float64) float64 {
-	if len(v) == 0 {
+	return madSigmaInPlace(append([]float64(nil), v...))
+}
+
+// madSigmaInPlace is madSigma for a scratch slice, which it overwrites with
+// the absolute deviations: one buffer serves both quickselects.
+func madSigmaInPlace(c []float64) float64 {
+	if len(c) == 0 {
 		return 0
 	}
-	c := append([]float64(nil), v...)
 	med := median(c)
 	for i, x := range c {
 		c[i] = math.Abs(x - med)
@@ -102,7 +134,7 @@ func diffNoise(y []float64) float64 {
 	for i := range d {
 		d[i] = y[i+1] - y[i]
 	}
-	return madSigma(d) / math.Sqrt2
+	return madSigmaInPlace(d) / math.Sqrt2
 }
 
 // EstimateNoise returns the robust noise level σ of a trace: the MAD of the
@@ -113,14 +145,20 @@ func EstimateNoise(y []float64) float64 { return diffNoise(y) }
 // regionNoise is the MAD σ of y over the points where free is true, or over
 // all points when fewer than 64 are free.
 func regionNoise(y []float64, free []bool) float64 {
-	v := make([]float64, 0, len(y))
+	nfree := 0
+	for _, f := range free {
+		if f {
+			nfree++
+		}
+	}
+	if nfree < 64 {
+		return madSigma(y)
+	}
+	v := make([]float64, 0, nfree)
 	for i, f := range free {
 		if f {
 			v = append(v, y[i])
 		}
 	}
-	if len(v) < 64 {
-		return madSigma(y)
-	}
-	return madSigma(v)
+	return madSigmaInPlace(v)
 }

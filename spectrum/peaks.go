@@ -66,13 +66,14 @@ func pickLines(ppm, y []float64, sigma, minSNR, hzPerPoint float64) []line {
 	if win < 3 {
 		win = 3
 	}
+	minProm := math.Max(pickProminence, minSNR) * sigma
 	var out []line
 	for i := 1; i < n-1; i++ {
 		v := y[i]
 		if v < thr || !(v > y[i-1] && v >= y[i+1]) {
 			continue
 		}
-		if prominence(y, i, win) < math.Max(pickProminence, minSNR)*sigma {
+		if !prominent(y, i, win, minProm) {
 			continue
 		}
 		l := refine(y, i)
@@ -123,29 +124,35 @@ func dropNarrow(ls []line) []line {
 	return out
 }
 
-// prominence is the height of y[i] above the higher of the lowest points
-// reached on each side before a taller point (or win points) is met.
-func prominence(y []float64, i, win int) float64 {
+// prominent reports whether y[i] stands at least minProm above the higher
+// of the lowest points reached on each side before a taller point (or win
+// points) is met: its topographic prominence within the window. Each side's
+// scan stops as soon as it has gone deep enough, since going further only
+// lowers its minimum; v−max(a,b) ≥ p exactly when v−a ≥ p and v−b ≥ p, as
+// floating-point subtraction is monotone.
+func prominent(y []float64, i, win int, minProm float64) bool {
 	v := y[i]
-	minL := v
-	for j := i - 1; j >= 0 && j >= i-win; j-- {
+	lo := max(i-win, 0)
+	deep := false
+	for j := i - 1; j >= lo && !deep; j-- {
 		if y[j] > v {
 			break
 		}
-		if y[j] < minL {
-			minL = y[j]
-		}
+		deep = v-y[j] >= minProm
 	}
-	minR := v
-	for j := i + 1; j < len(y) && j <= i+win; j++ {
+	if !deep {
+		return false
+	}
+	hi := min(i+win, len(y)-1)
+	for j := i + 1; j <= hi; j++ {
 		if y[j] > v {
-			break
+			return false
 		}
-		if y[j] < minR {
-			minR = y[j]
+		if v-y[j] >= minProm {
+			return true
 		}
 	}
-	return v - math.Max(minL, minR)
+	return false
 }
 
 // vertex returns the offset (in points, within ±1) of the extremum of the

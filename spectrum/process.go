@@ -312,10 +312,15 @@ func shiftedRef(r *IntegralRef, shift float64) *IntegralRef {
 
 func isFinite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
+// maxAbs is the largest |x| in v (NaN if v holds a NaN).
 func maxAbs(v []float64) float64 {
 	m := 0.0
 	for _, x := range v {
-		m = math.Max(m, math.Abs(x))
+		if a := math.Abs(x); a > m {
+			m = a
+		} else if a != a {
+			return a
+		}
 	}
 	return m
 }
