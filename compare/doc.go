@@ -21,14 +21,23 @@
 //     A multiplet of about n H is offered as n columns, so several signals
 //     can share it (overlap); each signal also has a private "missing"
 //     column. The cost of signal i in multiplet j is z² (z = shift distance
-//     over the prediction's SD, floored at 0.08 ppm; linear beyond 3 SD),
+//     — to the centre less 40 % of the width, that credit at most 0.25 ppm
+//     — over the prediction's SD, floored at 0.08 ppm; linear beyond 3 SD),
 //     plus 1.5 × a multiplicity term (0 same pattern, 0.3 unknown or same
-//     line count, 0.4 unresolved small couplings, up to 3), a J term (beyond
-//     ±1.5 Hz), a log-ratio term for NH against the multiplet's H, and 1.5 per
-//     extra signal already in the multiplet. Missing costs 20 (about 5.7 SD);
+//     line count, 0.4 unresolved small couplings, up to 3; +0.8 for a
+//     further signal in a clean s, d, t or q, which only accidental
+//     equivalence allows), a J term (beyond ±1.5 Hz), a log-ratio term for
+//     NH against the multiplet's H, and 1.5 per extra signal already in the
+//     multiplet (scaled by 4/H in an envelope of H ≥ 4 protons, where
+//     overlap is expected). Missing costs 20 (about 5.7 SD);
 //     exchangeable protons (OH, NH, COOH) have SD ≥ 1.2 ppm, a light
 //     integral term and a missing cost of 2: broad, shifted or absent
-//     exchangeables are noted, not punished. The residual-solvent peak can
+//     exchangeables are noted, not punished. An exchangeable predicted with
+//     a resolved splitting (OH/NH in DMSO-d6: slow exchange, a sharp d, t
+//     or q coupled to its CH) is a sharp line: SD ≥ 0.5 ppm, the full
+//     integral term, its multiplicity counted (a singlet, broad line or
+//     "m" at 0.3: exchange can still collapse it) and a missing cost of 6.
+//     The residual-solvent peak can
 //     take a signal at a cost of 4 (a compound line hidden under CHCl3).
 //  2. Integral scale. H per unit area is the H-weighted median of
 //     (assigned H)/(area) over the assigned multiplets, alternated with the
@@ -38,8 +47,9 @@
 //     taken as a second part of it (amide rotamers, diastereotopic CH2).
 //  4. Explanation. Peaks not given to the compound are, in order: 13C
 //     satellites (55–110 Hz from a parent at least 20× larger, 0.15–1.5 %
-//     of it) or mirrored spinning sidebands (5–50 Hz, < 3 %), besides the
-//     artifacts processing flags itself; the internal standard and the
+//     of it) or mirrored spinning sidebands (5–50 Hz, < 3 %), and regions
+//     wider than 1.5 ppm (baseline humps: no real multiplet is that wide),
+//     besides the artifacts processing flags itself; the internal standard and the
 //     --impurity structures (predicted, matched by a small assignment, at
 //     least half their H found; the amount is the H-weighted median of the
 //     per-proton amounts of the signals clear of the compound's lines —

@@ -115,6 +115,7 @@ func explain(ms []mplet, pre []string, sig []predict.Signal, sigM []int, scale, 
 	}
 	ex.absorbEdgeFragments(ms, field)
 	ex.findArtifacts(ms, field)
+	ex.findHumps(ms)
 	for j, o := range ex.owner {
 		if pre[j] == "" && o != "artifact" {
 			ex.total += ms[j].area // a part's area is counted with its host
@@ -201,6 +202,26 @@ func (ex *explanation) findArtifacts(ms []mplet, field float64) {
 			ex.owner[u] = "artifact"
 			ex.artifacts = append(ex.artifacts, Artifact{PPM: ms[u].ppm, Kind: kind, ParentPPM: ms[best].ppm,
 				Percent: 100 * ms[u].area / ms[best].area, Multiplet: ms[u].idx})
+		}
+	}
+}
+
+// humpMinWidth: a free region wider than this (ppm) is a baseline hump
+// (a rolling or distorted baseline, a background signal of the probe),
+// not a line of any species: real multiplets span at most about half a
+// ppm, broad exchange lines about one (common practice, no source).
+const humpMinWidth = 1.5
+
+// findHumps marks free, unlabelled regions wider than humpMinWidth as
+// artifacts ("baseline hump"): no table species or impurity is matched to
+// them and they are left out of the intensity total, like other
+// artifacts; the artifact list still shows them.
+func (ex *explanation) findHumps(ms []mplet) {
+	for u := range ms {
+		if ex.free(u) && ms[u].label == "" && ms[u].to-ms[u].from > humpMinWidth {
+			ex.owner[u] = "artifact"
+			ex.artifacts = append(ex.artifacts, Artifact{PPM: ms[u].ppm, Kind: "baseline hump", ParentPPM: ms[u].ppm,
+				Multiplet: ms[u].idx})
 		}
 	}
 }

@@ -23,13 +23,25 @@ const (
 	// water and temperature, and exchange broadens them).
 	exchBroadSDFactor = 2.0
 	broadLineHz       = 5.0 // a single line at least this wide counts as broad (sharp lines are about 1 Hz)
-	shareCost         = 1.5 // one more signal placed in an already used multiplet
-	multWeight        = 1.5 // weight of the multiplicity term
-	overWeight        = 4.0 // signal larger than the multiplet (log-ratio²)
-	underWeight       = 1.5 // multiplet larger than the signal (log-ratio²)
-	forbidden         = 1e6 // cost of an impossible pairing
-	solventCost       = 4   // a compound signal placed under the residual solvent peak
-	scaleIterations   = 3
+	// coupledExchSD: an exchangeable proton predicted with a resolved
+	// coupling (OH/NH in DMSO-d6 and other slow-exchange solvents, where
+	// the prediction gives a d, t or q) is a sharp line whose shift varies
+	// less than in fast exchange: the prediction's own SD is used, at least
+	// this much (common practice, no source: OH shifts in DMSO-d6 stay
+	// within about ±0.5 ppm of their class values).
+	coupledExchSD = 0.5
+	// missCostCoupled: such a sharp exchangeable is normally seen (slow
+	// exchange is why it is coupled), so leaving it unassigned costs more
+	// than for a broad one, though less than a C–H signal (a wet or acidic
+	// sample still collapses it; common practice, no source).
+	missCostCoupled = 6
+	shareCost       = 1.5 // one more signal placed in an already used multiplet
+	multWeight      = 1.5 // weight of the multiplicity term
+	overWeight      = 4.0 // signal larger than the multiplet (log-ratio²)
+	underWeight     = 1.5 // multiplet larger than the signal (log-ratio²)
+	forbidden       = 1e6 // cost of an impossible pairing
+	solventCost     = 4   // a compound signal placed under the residual solvent peak
+	scaleIterations = 3
 )
 
 // mplet is a measured multiplet prepared for matching.
@@ -124,6 +136,9 @@ func cleanMultiplicity(pl *spectrum.PeakList, m spectrum.Multiplet) string {
 
 // signalSD returns the shift uncertainty used for a signal.
 func signalSD(s predict.Signal) float64 {
+	if s.Exchangeable && coupledExch(s) {
+		return math.Max(s.ShiftSD, coupledExchSD)
+	}
 	if s.Exchangeable {
 		return math.Max(s.ShiftSD, exchShiftSD)
 	}
@@ -132,6 +147,44 @@ func signalSD(s predict.Signal) float64 {
 		sd *= 1.5
 	}
 	return math.Max(sd, minShiftSD)
+}
+
+// bigMultipletH: a measured multiplet of at least this many H is an
+// envelope of several protons (an aliphatic hump, an aromatic cluster),
+// where overlap is expected rather than a coincidence.
+const bigMultipletH = 4.0
+
+// shareCostAt is the cost of the k-th further signal placed in a multiplet
+// of hMeas H (0 when the scale is unknown): k·shareCost, reduced by
+// bigMultipletH/hMeas for a multiplet of at least bigMultipletH H (common
+// practice, no source: a 9 H envelope at 0.8–0.9 ppm holds two methyl
+// doublets and several ring CH by overlap).
+func shareCostAt(k int, hMeas float64) float64 {
+	c := float64(k) * shareCost
+	if hMeas >= bigMultipletH {
+		c *= bigMultipletH / hMeas
+	}
+	return c
+}
+
+// coupledExch reports whether an exchangeable signal is predicted with a
+// resolved splitting (d, t, q, …): slow exchange, as for OH and NH in
+// DMSO-d6.
+func coupledExch(s predict.Signal) bool {
+	p := parsePattern(s.Multiplicity)
+	return s.Exchangeable && p.known && !p.broad && len(p.n) > 0
+}
+
+// exchMultCost is the multiplicity term of a coupled exchangeable signal
+// (coupledExch) in multiplet m: the predicted pattern costs nothing, a
+// singlet, broad line or unresolved "m" costs 0.3 (exchange with water or
+// acid traces can collapse the coupling), anything else is multCost.
+func exchMultCost(s predict.Signal, m mplet) float64 {
+	b := parsePattern(m.mult)
+	if broadLine(m) || !b.known || b.broad || len(b.n) == 0 {
+		return 0.3
+	}
+	return multCost(s.Multiplicity, m.mult)
 }
 
 // broadLine reports whether a multiplet is one broad line (a singlet whose
@@ -143,11 +196,18 @@ func broadLine(m mplet) bool {
 	return m.pk[0].WidthHz >= broadLineHz
 }
 
+// maxWidthCredit caps the width credit of shiftDistance: the widest real
+// multiplets (second-order patterns at 60–90 MHz, aliphatic envelopes)
+// span about half a ppm; a wider region is a baseline hump or a broad
+// exchange line and does not bring far signals closer (common practice, no
+// source).
+const maxWidthCredit = 0.25
+
 // shiftDistance is how far the predicted shift lies from a multiplet: the
 // distance to its centre less 40 % of its width (a wide multiplet holds
-// signals spread across it).
+// signals spread across it), at most maxWidthCredit.
 func shiftDistance(pred float64, m mplet) float64 {
-	return math.Max(0, math.Abs(pred-m.ppm)-0.4*(m.to-m.from))
+	return math.Max(0, math.Abs(pred-m.ppm)-math.Min(0.4*(m.to-m.from), maxWidthCredit))
 }
 
 // shiftCost is z² up to z = 3, then grows linearly, so that a far but
@@ -228,7 +288,7 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 			if s.Exchangeable && broadLine(m) {
 				z /= exchBroadSDFactor // a broad line is the mark of an exchanging proton
 			}
-			v := shiftCost(z) + float64(cl.k)*shareCost
+			v := shiftCost(z) + shareCostAt(cl.k, m.area*hPerArea)
 			if penalty != nil {
 				v += penalty[cl.m]
 			}
@@ -237,17 +297,24 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 				if cl.k > 0 || s.Mode == "exact" {
 					mc *= 0.3 // overlapped or strongly coupled: the shape is not its own
 				}
+				if cl.k > 0 && cleanPattern(m.mult) {
+					mc += sharedCleanCost // a clean s, d, t, q shared: accidental equivalence only
+				}
 				v += mw*mc + jCost(pj, m.j)
+			} else if coupledExch(s) {
+				v += mw * exchMultCost(s, m)
 			}
 			if hPerArea > 0 && (penalty == nil || penalty[cl.m] == 0) {
-				v += intCost(s.NH, m.area*hPerArea, cl.k, s.Exchangeable)
+				v += intCost(s.NH, m.area*hPerArea, cl.k, s.Exchangeable && !coupledExch(s))
 			}
 			row[c] = v
 		}
 		for k := 0; k < n; k++ {
 			row[len(cols)+k] = forbidden
 		}
-		if s.Exchangeable {
+		if coupledExch(s) {
+			row[len(cols)+i] = missCostCoupled
+		} else if s.Exchangeable {
 			row[len(cols)+i] = missCostExch
 		} else {
 			row[len(cols)+i] = missCost

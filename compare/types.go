@@ -154,7 +154,7 @@ type Identity struct {
 // sideband of a larger peak.
 type Artifact struct {
 	PPM       float64 `json:"ppm"`
-	Kind      string  `json:"kind"` // "13C satellite", "spinning sideband"
+	Kind      string  `json:"kind"` // "13C satellite", "spinning sideband", "baseline hump"
 	ParentPPM float64 `json:"parent_ppm"`
 	Percent   float64 `json:"percent_of_parent"`
 	Multiplet int     `json:"multiplet"`
