@@ -237,8 +237,10 @@ func (p *processed) valley(a, b int) float64 {
 		i, j = j, i
 	}
 	m := math.Inf(1)
-	for k := i; k <= j; k++ {
-		m = math.Min(m, p.y[k])
+	for _, v := range p.y[i : j+1] {
+		if v < m { // the trace is finite: no NaN to propagate
+			m = v
+		}
 	}
 	return m
 }
