@@ -88,6 +88,42 @@ func (sc *lineScanner) next() (kind tokKind, v float64, ok bool, msg string) {
 	return tokNone, 0, true, "unexpected character " + strconv.QuoteRune(rune(c)) + " in data"
 }
 
+// intDif reads the next token when it is a DIF value of at most 16
+// digits without a decimal point (the common token of DIFDUP data) and
+// returns it; otherwise it reads nothing and ok is false.
+func (sc *lineScanner) intDif() (v float64, ok bool) {
+	s, i := sc.s, sc.pos
+	if i >= len(s) {
+		return 0, false
+	}
+	p := pseudoTable[s[i]]
+	if p.kind != tokDif {
+		return 0, false
+	}
+	acc := int64(p.digit)
+	neg := acc < 0
+	if neg {
+		acc = -acc
+	}
+	start := i + 1
+	for i = start; i < len(s); i++ {
+		c := s[i] - '0'
+		if c > 9 {
+			break
+		}
+		acc = acc*10 + int64(c)
+	}
+	if i-start >= 17 || (i < len(s) && s[i] == '.') {
+		return 0, false // too long or a decimal: the general path decides
+	}
+	sc.pos = i
+	v = float64(acc)
+	if neg {
+		v = -v
+	}
+	return v, true
+}
+
 // digits reads the digits that follow a pseudo-digit whose signed value is
 // first. Numbers of up to maxExactDigits digits are converted exactly by
 // hand; longer ones with a decimal point go through strconv.
@@ -253,6 +289,18 @@ func (d *xyDecoder) decodeLine(num int, text []byte) error {
 	)
 	mark := lineMark{line: num, x: x, index: len(d.ys)}
 	for {
+		if lastKind != tokNone {
+			if v, ok := sc.intDif(); ok {
+				// The common token of DIFDUP data, without the general path.
+				last += v
+				lastDif, lastKind = v, tokDif
+				if err := d.push(num, last); err != nil {
+					return err
+				}
+				first = false
+				continue
+			}
+		}
 		kind, v, ok, msg := sc.next()
 		if !ok {
 			break
