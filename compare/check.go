@@ -68,6 +68,15 @@ func Check(in Input, opt Options) (*Result, error) {
 			warn = append(warn, fmt.Sprintf("solvent %q not in the impurity table: residual solvent and contaminants cannot be identified", solvName))
 		}
 	}
+	ms := prepMultiplets(pl)
+	altRes := -1
+	if solvOK && opt.Solvent == "" {
+		// The file's solvent, not the user's: trust the lines over the header.
+		if alt, j, ok := solventFromLines(ms, solv); ok {
+			warn = append(warn, solventWarning(solv, alt))
+			solv, altRes = alt, j
+		}
+	}
 	canon := solvName
 	if solvOK {
 		canon = solv.Name
@@ -89,8 +98,10 @@ func Check(in Input, opt Options) (*Result, error) {
 			return nil, err
 		}
 	}
-	ms := prepMultiplets(pl)
 	pre := claimFixed(ms, solv, solvOK)
+	if altRes >= 0 && pre[altRes] == "" {
+		pre[altRes] = "solvent" // the residual line that told the solvent
+	}
 	extras, xwarn := predictExtras(in, pr, field, canon)
 	warn = append(warn, xwarn...)
 

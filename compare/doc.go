@@ -16,6 +16,14 @@
 // Options.Predictor replaces both), then for the intended structure and each
 // candidate:
 //
+//  0. Solvent. The solvent is the user's (Options.Solvent) or the file's.
+//     A file's solvent whose residual line is absent (no multiplet within
+//     0.03 ppm of it) gives way to the one table solvent whose residual
+//     line (±0.03 ppm, narrow) and water line (±0.10 ppm) are both present
+//     (a template header or a dataset default naming CDCl3 for a DMSO-d6
+//     tube); a warning says so, the prediction uses that solvent and its
+//     residual line is claimed as solvent. Not for D2O (one line only) and
+//     never against the user's choice.
 //  1. Assignment. Predicted signals (rows) are matched to measured
 //     multiplets (columns) by a global minimum-cost assignment (Hungarian).
 //     A multiplet of about n H is offered as n columns, so several signals

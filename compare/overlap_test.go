@@ -148,3 +148,60 @@ func TestBaselineHump(t *testing.T) {
 		t.Errorf("verdict %s %.2f, want consistent: %q", res.Verdict, res.Score, res.Reasons)
 	}
 }
+
+// TestSolventFromLines: butanone's lines in a tube whose file says CDCl3
+// but that holds DMSO-d6: no CHCl3 line at 7.26, the DMSO-d5 quintet at
+// 2.50 and water at 3.33 (Gottlieb 1997 Table 1, values from memory). The
+// check must use DMSO-d6, say so, and take 2.50 as residual solvent. Given
+// explicitly (Options.Solvent), the user's solvent stands; with a CHCl3
+// line present the header stands.
+func TestSolventFromLines(t *testing.T) {
+	t.Parallel()
+	dmso := func(chcl3 bool) *spectrum.PeakList {
+		k := 10.0
+		pl := &spectrum.PeakList{FieldMHz: 400, Solvent: "CDCl3", Multiplets: []spectrum.Multiplet{
+			mp(2.50, 3, 0.3*k, "quint", 1.8),
+			mp(3.33, 3, 0.5*k, "s"),
+			mp(2.44, 12, 2*k, "q", 7.3),
+			mp(2.08, 2, 3*k, "s"),
+			mp(0.91, 8, 3*k, "t", 7.3),
+		}}
+		if chcl3 {
+			pl.Multiplets = append(pl.Multiplets, mp(7.26, 2, 0.2*k, "s"))
+		}
+		return pl
+	}
+	cases := []struct {
+		name  string
+		pl    *spectrum.PeakList
+		given string
+		want  string
+	}{
+		{"lines say DMSO-d6", dmso(false), "", "DMSO-d6"},
+		{"user says CDCl3", dmso(false), "CDCl3", "CDCl3"},
+		{"CHCl3 line present", dmso(true), "", "CDCl3"},
+	}
+	for _, c := range cases {
+		res, err := Check(Input{Smiles: "CCC(C)=O", Peaks: c.pl}, Options{Solvent: c.given, Predictor: handPredictor(t)})
+		if err != nil {
+			t.Fatal(err)
+		}
+		warned := strings.Contains(strings.Join(res.Warnings, "|"), "checked as DMSO-d6")
+		if res.Solvent != c.want || warned != (c.want == "DMSO-d6") {
+			t.Errorf("%s: solvent %s (warned %v), want %s", c.name, res.Solvent, warned, c.want)
+		}
+		if c.want != "DMSO-d6" {
+			continue
+		}
+		names := ""
+		for _, f := range res.Found {
+			names += f.Name + ";"
+		}
+		if !strings.Contains(names, "DMSO-d5") {
+			t.Errorf("%s: identified %q, want the DMSO-d5 residual", c.name, names)
+		}
+		if res.Verdict != Consistent {
+			t.Errorf("%s: verdict %s %.2f: %q", c.name, res.Verdict, res.Score, res.Reasons)
+		}
+	}
+}
