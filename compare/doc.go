@@ -34,7 +34,10 @@
 //     plus 1.5 × a multiplicity term (0 same pattern, 0.3 unknown or same
 //     line count, 0.4 unresolved small couplings, up to 3; +0.8 for a
 //     further signal in a clean s, d, t or q, which only accidental
-//     equivalence allows), a J term (beyond ±1.5 Hz), a log-ratio term for
+//     equivalence allows; a multiplet that is one broad line, ≥ 5 Hz and
+//     at least 0.8 × as wide as the signal's predicted pattern span
+//     Σ n·|J|, reads as that pattern unresolved, "m", not as a singlet),
+//     a J term (beyond ±1.5 Hz), a log-ratio term for
 //     NH against the multiplet's H, and 1.5 per extra signal already in the
 //     multiplet (scaled by 4/H in an envelope of H ≥ 4 protons, where
 //     overlap is expected). Missing costs 20 (about 5.7 SD);

@@ -95,7 +95,7 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 		fit.Multiplet = m.idx
 		z := shiftDistance(s.ShiftPPM, m) / signalSD(s)
 		ev.z[i] = z
-		mc := signalMultCost(s, m.mult, ev.nhOf()) + jCost(distinctJ(s), m.j)
+		mc := signalMultCost(s, seenMult(s, m, ev.nhOf()), ev.nhOf()) + jCost(distinctJ(s), m.j)
 		if hostN[j] > 1 || s.Mode == "exact" {
 			mc *= 0.3
 		}

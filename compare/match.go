@@ -293,7 +293,7 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 				v += penalty[cl.m]
 			}
 			if !s.Exchangeable {
-				mc := signalMultCost(s, m.mult, nhOf)
+				mc := signalMultCost(s, seenMult(s, m, nhOf), nhOf)
 				if cl.k > 0 || s.Mode == "exact" {
 					mc *= 0.3 // overlapped or strongly coupled: the shape is not its own
 				}

@@ -220,3 +220,40 @@ func largest(xs []float64) []float64 {
 	}
 	return []float64{m}
 }
+
+// blurredFrac: a single measured line at least this fraction as wide (Hz,
+// at half height) as the total span of a signal's predicted pattern can be
+// that pattern unresolved: lines closer than about their width merge
+// (common practice, no source; the Rayleigh-type criterion for two
+// Lorentzians).
+const blurredFrac = 0.8
+
+// patternSpanHz is the distance between the outer lines of a signal's
+// first-order pattern: Σ n·|J| over its couplings (n the H of the partner
+// signal, 1 for a heteronucleus).
+func patternSpanHz(s predict.Signal, nhOf map[string]int) float64 {
+	span := 0.0
+	for _, c := range s.Couplings {
+		n := 1
+		if k, ok := nhOf[c.To]; ok {
+			n = k
+		}
+		span += float64(n) * math.Abs(c.JHz)
+	}
+	return span
+}
+
+// seenMult is the measured multiplicity as a signal can read it: a
+// multiplet that is one broad line (width ≥ broadLineHz) at least
+// blurredFrac as wide as the signal's predicted pattern is that pattern
+// unresolved ("m": low digital resolution, heavy apodisation, shimming),
+// not a singlet.
+func seenMult(s predict.Signal, m mplet, nhOf map[string]int) string {
+	if !broadLine(m) {
+		return m.mult
+	}
+	if span := patternSpanHz(s, nhOf); span > 0 && m.pk[0].WidthHz >= blurredFrac*span {
+		return "m"
+	}
+	return m.mult
+}

@@ -205,3 +205,44 @@ func TestSolventFromLines(t *testing.T) {
 		}
 	}
 }
+
+// TestBlurredPattern: an ethyl group (CH3 t, CH2 q, J 7.1 Hz: spans 14.2
+// and 21.3 Hz) measured at low resolution, each pattern one line of 16 and
+// 24 Hz that processing labels "s" (as in a heavily apodised or coarsely
+// digitised spectrum). A single line as wide as the predicted pattern is
+// that pattern unresolved, not a singlet: no multiplicity complaint. The
+// same lines at 1 Hz width are true singlets and must still be named
+// (common practice, no source).
+func TestBlurredPattern(t *testing.T) {
+	t.Parallel()
+	p := predict.Prediction{MolecularWeight: 88.1, Signals: []predict.Signal{
+		{Label: "A", NH: 3, Kind: "CH3", ShiftPPM: 1.25, ShiftSD: 0.1, Multiplicity: "t", Couplings: []predict.Coupling{{To: "B", JHz: 7.1}}},
+		{Label: "B", NH: 2, Kind: "CH2", ShiftPPM: 4.10, ShiftSD: 0.1, Multiplicity: "q", Couplings: []predict.Coupling{{To: "A", JHz: 7.1}}},
+		{Label: "C", NH: 3, Kind: "CH3", ShiftPPM: 2.05, ShiftSD: 0.1, Multiplicity: "s"},
+	}}
+	for _, c := range []struct {
+		w1, w2 float64
+		blur   bool
+	}{{16, 24, true}, {1, 1, false}} {
+		k := 10.0
+		pl := &spectrum.PeakList{FieldMHz: 400, Peaks: []spectrum.Peak{
+			{PPM: 1.26, Intensity: 3, SNR: 500, WidthHz: c.w1},
+			{PPM: 4.12, Intensity: 2, SNR: 300, WidthHz: c.w2},
+			{PPM: 2.04, Intensity: 30, SNR: 5000, WidthHz: 1},
+			{PPM: 7.26, Intensity: 1, SNR: 100, WidthHz: 1},
+		}, Multiplets: []spectrum.Multiplet{
+			{PPM: 1.26, FromPPM: 1.22, ToPPM: 1.30, Integral: 3 * k, Multiplicity: "s", PeakIndex: []int{0}},
+			{PPM: 4.12, FromPPM: 4.07, ToPPM: 4.17, Integral: 2 * k, Multiplicity: "s", PeakIndex: []int{1}},
+			{PPM: 2.04, FromPPM: 2.03, ToPPM: 2.05, Integral: 3 * k, Multiplicity: "s", PeakIndex: []int{2}},
+			{PPM: 7.26, FromPPM: 7.25, ToPPM: 7.27, Integral: 0.05 * k, Multiplicity: "s", PeakIndex: []int{3}},
+		}}
+		res, _ := checkHand(t, pl, "CDCl3", p)
+		named := strings.Contains(strings.Join(res.Reasons, "|"), "predicted as t, measured multiplet at 1.26 is s")
+		if named == c.blur {
+			t.Errorf("lines %g/%g Hz: multiplicity complaint %v, want %v: %q", c.w1, c.w2, named, !c.blur, res.Reasons)
+		}
+		if c.blur && res.Verdict != Consistent {
+			t.Errorf("lines %g/%g Hz: verdict %s %.2f, want consistent: %q", c.w1, c.w2, res.Verdict, res.Score, res.Reasons)
+		}
+	}
+}
