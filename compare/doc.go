@@ -69,7 +69,9 @@
 //     smallest, since an overlapped signal can only gain area); table
 //     species for the solvent
 //     (tables/impurities.toml: Gottlieb, Kotlyar & Nudelman 1997 and
-//     Fulmer et al. 2010, values from memory), whole sets first, a signal
+//     Fulmer et al. 2010, values from memory), whole sets first (a lone line that water
+//     or a one-line contaminant could be is water, the other named as the
+//     alternative), a signal
 //     hidden under a compound multiplet counting towards the set, named
 //     only at ≥ 0.1 mol % with a peak of S/N ≥ 10, a tabulated singlet
 //     never matching a multiplet read as resolved d, t, q, dd … (an "m" or

@@ -360,6 +360,12 @@ func (ex *explanation) matchTable(ms []mplet, solv SolventInfo, scale float64) {
 			if hits[a].nSig != hits[b].nSig {
 				return hits[a].nSig > hits[b].nSig
 			}
+			if hits[a].water != hits[b].water && hits[a].nSig == 1 && sameMultiplets(hits[a].ms, hits[b].ms) {
+				// One line that water or a one-line contaminant could be:
+				// every tube holds water (the other is named as the
+				// alternative).
+				return hits[a].water
+			}
 			da, db := hits[a].dist/hits[a].sp.Tol, hits[b].dist/hits[b].sp.Tol
 			if math.Abs(da-db) > 1e-9 {
 				return da < db
