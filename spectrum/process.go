@@ -174,9 +174,9 @@ func processTrace(s *Spectrum, c *config) (*processed, error) {
 	ppm := append([]float64(nil), s.PPM...)
 	perPPM := float64(n-1) / (ppm[n-1] - ppm[0])
 	bl := estimateBaseline(s.Y, perPPM)
-	y := make([]float64, n)
-	for i := range y {
-		y[i] = s.Y[i] - bl.Z[i]
+	y := bl.Z // the corrected trace replaces the baseline in its own slice
+	for i, z := range y {
+		y[i] = s.Y[i] - z
 	}
 	sigma := regionNoise(y, bl.Free)
 	if !(sigma > 0) {
