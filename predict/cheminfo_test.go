@@ -1,9 +1,7 @@
 package predict
 
 import (
-	"bufio"
 	"math"
-	"os"
 	"sort"
 	"strconv"
 	"strings"
@@ -14,32 +12,9 @@ import (
 	"shiftwise/smiles"
 )
 
-// readTSV reads a tab-separated file with a header into maps.
 func readTSV(t *testing.T, path string) []map[string]string {
 	t.Helper()
-	f, err := os.Open(path)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	var head []string
-	var rows []map[string]string
-	sc := bufio.NewScanner(f)
-	for sc.Scan() {
-		cols := strings.Split(sc.Text(), "\t")
-		if head == nil {
-			head = cols
-			continue
-		}
-		r := map[string]string{}
-		for i, h := range head {
-			if i < len(cols) {
-				r[h] = cols[i]
-			}
-		}
-		rows = append(rows, r)
-	}
-	return rows
+	return extdata.ReadTSV(t, path)
 }
 
 // TestCheminfoLargestJ compares the largest predicted coupling of a signal

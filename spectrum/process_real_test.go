@@ -1,10 +1,8 @@
 package spectrum
 
 import (
-	"bufio"
 	"fmt"
 	"math"
-	"os"
 	"path/filepath"
 	"sort"
 	"strconv"
@@ -32,32 +30,9 @@ const (
 	realMinIntegralRate = 0.66 // 0.671 with CHCl3 split off, broad-line widths and the valley rule (0.684 at one point came partly from bogus 400 Hz widths of weak lines, since fixed); 0.603 before
 )
 
-// readTSV reads a tab-separated file with a header into maps.
 func readTSV(t *testing.T, path string) []map[string]string {
 	t.Helper()
-	f, err := os.Open(path)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	sc := bufio.NewScanner(f)
-	var head []string
-	var rows []map[string]string
-	for sc.Scan() {
-		cols := strings.Split(sc.Text(), "\t")
-		if head == nil {
-			head = cols
-			continue
-		}
-		r := map[string]string{}
-		for i, h := range head {
-			if i < len(cols) {
-				r[h] = cols[i]
-			}
-		}
-		rows = append(rows, r)
-	}
-	return rows
+	return extdata.ReadTSV(t, path)
 }
 
 // realSpectrum is one processed file of the dataset.

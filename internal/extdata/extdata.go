@@ -9,6 +9,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"runtime"
+	"strings"
 	"testing"
 )
 
@@ -67,4 +68,32 @@ func missing(t testing.TB, msg string) {
 		t.Fatalf("%s (SHIFTWISE_REQUIRE_EXTERNAL=1)", msg)
 	}
 	t.Skipf("skipping: %s (set SHIFTWISE_REQUIRE_EXTERNAL=1 to make this an error)", msg)
+}
+
+// ReadTSV reads a tab-separated file whose first line names the columns and
+// returns one map per row (column name → field). A missing file fails the
+// test (find it with Path first to skip when it is absent).
+func ReadTSV(t testing.TB, path string) []map[string]string {
+	t.Helper()
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var head []string
+	var rows []map[string]string
+	for _, line := range strings.Split(strings.TrimRight(string(b), "\n"), "\n") {
+		cols := strings.Split(strings.TrimRight(line, "\r"), "\t")
+		if head == nil {
+			head = cols
+			continue
+		}
+		r := make(map[string]string, len(head))
+		for i, h := range head {
+			if i < len(cols) {
+				r[h] = cols[i]
+			}
+		}
+		rows = append(rows, r)
+	}
+	return rows
 }
