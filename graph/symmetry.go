@@ -126,66 +126,17 @@ func (m *Mol) symRefine(init [][]int) []int {
 }
 
 // symRingAtoms marks the atoms that lie on a cycle: atoms with at least one
-// bond that is not a bridge. It needs no ring perception.
+// bond that is not a bridge. It needs no ring perception (only the bridge
+// search of rings.go).
 func (m *Mol) symRingAtoms() []bool {
-	bridge := m.symBridges()
+	onCycle := m.bridgesComplement()
 	out := make([]bool, len(m.Atoms))
 	for bi, b := range m.Bonds {
-		if !bridge[bi] {
+		if onCycle[bi] {
 			out[b.A], out[b.B] = true, true
 		}
 	}
 	return out
-}
-
-// symBridges marks the bonds whose removal disconnects the graph (Tarjan's
-// low-link method, iterative so that long chains cannot exhaust the stack).
-func (m *Mol) symBridges() []bool {
-	n := len(m.Atoms)
-	bridge := make([]bool, len(m.Bonds))
-	disc := make([]int, n)
-	low := make([]int, n)
-	for i := range disc {
-		disc[i] = -1
-	}
-	type frame struct{ atom, viaBond, next int }
-	t := 0
-	for root := 0; root < n; root++ {
-		if disc[root] >= 0 {
-			continue
-		}
-		disc[root], low[root] = t, t
-		t++
-		stack := []frame{{root, -1, 0}}
-		for len(stack) > 0 {
-			f := &stack[len(stack)-1]
-			if f.next < len(m.adj[f.atom]) {
-				bi := m.adj[f.atom][f.next]
-				f.next++
-				if bi == f.viaBond {
-					continue
-				}
-				o := m.Bonds[bi].Other(f.atom)
-				if disc[o] < 0 {
-					disc[o], low[o] = t, t
-					t++
-					stack = append(stack, frame{o, bi, 0})
-				} else {
-					low[f.atom] = min(low[f.atom], disc[o])
-				}
-				continue
-			}
-			stack = stack[:len(stack)-1]
-			if len(stack) > 0 {
-				p := stack[len(stack)-1].atom
-				low[p] = min(low[p], low[f.atom])
-				if low[f.atom] > disc[p] {
-					bridge[f.viaBond] = true
-				}
-			}
-		}
-	}
-	return bridge
 }
 
 // symDistances returns the bond-path distances from atom a to every atom
