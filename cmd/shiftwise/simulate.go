@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"path/filepath"
+	"slices"
 	"strings"
 	"text/tabwriter"
 
@@ -68,8 +69,11 @@ the pattern change, or compare fields and modes.
 
 Modes: exact diagonalises each coupled cluster; first-order splits every group
 by its partners (Pascal's triangle); auto (default) is exact where |Δν| < 10·|J|
-and first-order elsewhere (everywhere, with a note on stderr, when a strongly
-coupled cluster is too large to simulate exactly). 19F and 31P split the 1H lines but are not shown.
+and first-order elsewhere. In auto mode a strongly coupled cluster too large to
+diagonalise (more than 12 distinct spins) is simulated by fragments: each group
+with its most strongly coupled neighbours, up to 8 spins, an approximation
+marked "fragment" in the mode column. 19F and 31P split the 1H lines but are
+not shown.
 
 Each line is the sum over the groups that take part in the transition and is
 labelled with the group carrying most of it; intensities are scaled so that
@@ -140,6 +144,9 @@ func runSimulate(f *Factory, o *simulateOptions) error {
 	}
 	if err != nil {
 		return withCode(exitError, fmt.Errorf("%s: %w", o.file, err))
+	}
+	if slices.Contains(res.ModeUsed, spin.Fragment) {
+		fmt.Fprintf(f.Err, "shiftwise: note: %s: a strongly coupled cluster is too large to simulate exactly; simulated by fragments of up to %d spins (approximate, lines marked \"fragment\")\n", o.file, spin.DefaultFragmentSpins)
 	}
 	out := simulateResult(sf, res, field)
 	if len(out.Lines) == 0 {

@@ -46,6 +46,13 @@ func BenchmarkCluster14(b *testing.B) {
 	benchSim(b, chain(14, 0.05), Options{FieldMHz: 400, Mode: Exact, MaxSpins: 14})
 }
 
+// BenchmarkCluster14Auto is the same 14-spin cluster in Auto mode: too
+// large to diagonalise at the default MaxSpins, it is simulated by
+// fragments of 8 spins (an approximation; see TestFragment14Accuracy).
+func BenchmarkCluster14Auto(b *testing.B) {
+	benchSim(b, chain(14, 0.05), Options{FieldMHz: 400, Mode: Auto})
+}
+
 // heptanal is a 14-proton chain CH3(CH2)5CHO with typical shifts and
 // vicinal J of 7 Hz (common practice, no source): at 60 MHz its CH2 groups
 // form one strongly coupled cluster of magnetically equivalent groups.

@@ -67,7 +67,12 @@
 // (default 12 distinct spin-1/2 nuclei: largest Mz block 924 states; the
 // work, Σ d³ over all blocks and spin combinations, is bounded the same way)
 // with an error wrapping ErrTooLarge that suggests first-order mode, rather
-// than exhausting memory. Composite particles make clusters of CH3 and CH2
+// than exhausting memory. Auto mode instead simulates such a cluster by
+// fragments (fragment.go): each group with its most strongly coupled
+// neighbours, up to Options.FragmentSpins (default 8) spins, keeping only
+// that group's lines; Result.ModeUsed reports Fragment for its groups. On a
+// 14-spin chain with Δν/J ≈ 3 this is within about 1.3% of the exact
+// spectrum's height at a small fraction of the cost (TestFragment14Accuracy). Composite particles make clusters of CH3 and CH2
 // groups much cheaper than their number of nuclei suggests.
 //
 // Blocks are diagonalised in waves of GOMAXPROCS blocks, and the lines

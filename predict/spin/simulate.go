@@ -58,7 +58,12 @@ func Simulate(sys System, opt Options) (*Result, error) {
 	}
 	var lines []rawLine
 	for _, c := range clusters {
+		mode := Exact
 		cl, dropped, err := es.simulateCluster(c, opt)
+		if opt.Mode == Auto && len(c) > 1 && errors.Is(err, ErrTooLarge) {
+			mode = Fragment
+			cl, dropped, err = es.fragmentLines(c, opt)
+		}
 		if err != nil {
 			return nil, err
 		}
@@ -67,7 +72,7 @@ func Simulate(sys System, opt Options) (*Result, error) {
 		if opt.Mode == Exact || len(c) > 1 {
 			for _, eg := range c {
 				for _, m := range es.g[eg].members {
-					res.ModeUsed[m] = Exact
+					res.ModeUsed[m] = mode
 				}
 			}
 		}
@@ -89,6 +94,9 @@ func validate(sys System, opt Options) error {
 	}
 	if opt.MaxSpins < 0 || opt.MaxSpins > maxSpinsLimit {
 		return fmt.Errorf("spin: MaxSpins must be between 0 and %d, got %d", maxSpinsLimit, opt.MaxSpins)
+	}
+	if opt.FragmentSpins < 0 || opt.FragmentSpins > maxSpinsLimit {
+		return fmt.Errorf("spin: FragmentSpins must be between 0 and %d, got %d", maxSpinsLimit, opt.FragmentSpins)
 	}
 	if len(sys.Groups) == 0 {
 		return errors.New("spin: the system has no groups")

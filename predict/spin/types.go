@@ -43,6 +43,8 @@ func (m Mode) String() string {
 		return "first-order"
 	case Exact:
 		return "exact"
+	case Fragment:
+		return "fragment"
 	}
 	return fmt.Sprintf("Mode(%d)", int(m))
 }
@@ -65,6 +67,10 @@ const (
 	Auto       Mode = iota // exact where coupling is strong, first-order elsewhere
 	FirstOrder             // successive splitting everywhere
 	Exact                  // full diagonalisation of each coupled cluster
+	// Fragment is reported in Result.ModeUsed, never chosen: Auto mode
+	// simulated the group's cluster, too large to diagonalise, by
+	// fragments (an approximation, see DefaultFragmentSpins).
+	Fragment
 )
 
 // Options controls a simulation.
@@ -78,7 +84,11 @@ type Options struct {
 	// bigger than that of MaxSpins distinct spin-1/2 nuclei, or whose total
 	// diagonalisation work exceeds theirs, is refused with an error that
 	// suggests first-order mode. Zero means DefaultMaxSpins (12); at most 16.
+	// In Auto mode such a cluster is simulated by fragments instead.
 	MaxSpins int
+	// FragmentSpins bounds the fragments of an oversized cluster in Auto
+	// mode in the same way. Zero means DefaultFragmentSpins (8); at most 16.
+	FragmentSpins int
 }
 
 // Line is one transition of the 1H spectrum. Intensities are normalised so
@@ -97,7 +107,8 @@ type Line struct {
 // Result is the outcome of Simulate.
 type Result struct {
 	Lines []Line
-	// ModeUsed[g] is the mode actually used for group g (FirstOrder or Exact).
+	// ModeUsed[g] is the mode actually used for group g (FirstOrder, Exact
+	// or Fragment).
 	ModeUsed []Mode
 	// Dropped is the total intensity of exact transitions weaker than
 	// MinLine, which are not listed: the lines plus Dropped sum to the

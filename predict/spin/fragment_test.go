@@ -1,0 +1,131 @@
+package spin
+
+import (
+	"errors"
+	"math"
+	"os"
+	"testing"
+)
+
+// traceDiff renders both line lists as 1 Hz Lorentzians over a's span and
+// returns the largest difference relative to a's tallest point.
+func traceDiff(a, b []Line, field float64) float64 {
+	lo, hi := Span(a, 0.1)
+	_, ya := Render(a, field, lo, hi, 4000, 1.0)
+	_, yb := Render(b, field, lo, hi, 4000, 1.0)
+	d, top := 0.0, 0.0
+	for i := range ya {
+		d = math.Max(d, math.Abs(ya[i]-yb[i]))
+		top = math.Max(top, ya[i])
+	}
+	return d / top
+}
+
+// TestFragmentApproachesExact: a 10-spin chain (Δν/J ≈ 3 between
+// neighbours at 400 MHz) refused for exact simulation by MaxSpins 8 is
+// simulated by fragments in Auto mode. Reference: the exact
+// diagonalisation of the whole cluster (this package's Exact mode, itself
+// checked against the closed-form AB, A2B and ABX analyses in
+// closedform_test.go).
+//   - Fragments as large as the cluster contain all of it, so every group's
+//     lines are the exact ones (a limit, no tolerance beyond rounding).
+//   - Fragments of 8 spins reproduce the rendered spectrum to within 2.5%
+//     of its tallest point (measured 1.1%), where first-order splitting is
+//     off by more than half of it (measured 69%).
+//   - Every group's lines sum to its Count to within 0.1% (sum rule: the
+//     shares of one group sum to Tr(F+_g F−_g)).
+func TestFragmentApproachesExact(t *testing.T) {
+	t.Parallel()
+	sys := chain(10, 0.05)
+	ex, err := Simulate(sys, Options{FieldMHz: 400, Mode: Exact})
+	if err != nil {
+		t.Fatal(err)
+	}
+	fo, err := Simulate(sys, Options{FieldMHz: 400, Mode: FirstOrder})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := traceDiff(ex.Lines, fo.Lines, 400); d < 0.5 {
+		t.Fatalf("first-order differs from exact by only %.3f: the test system is not strongly coupled", d)
+	}
+	for _, tc := range []struct {
+		frag int
+		tol  float64
+	}{{10, 1e-9}, {8, 0.025}} {
+		fr, err := Simulate(sys, Options{FieldMHz: 400, Mode: Auto, MaxSpins: 8, FragmentSpins: tc.frag})
+		if err != nil {
+			t.Fatalf("fragments of %d: %v", tc.frag, err)
+		}
+		if d := traceDiff(ex.Lines, fr.Lines, 400); d > tc.tol {
+			t.Errorf("fragments of %d: trace differs from exact by %.3g of its height, want ≤ %g", tc.frag, d, tc.tol)
+		}
+		sum := make([]float64, len(sys.Groups))
+		for _, l := range fr.Lines {
+			sum[l.Group] += l.Intensity
+		}
+		for g, s := range sum {
+			if math.Abs(s-1) > 1e-3 {
+				t.Errorf("fragments of %d: group %d lines sum to %.5f, want 1", tc.frag, g, s)
+			}
+			if fr.ModeUsed[g] != Fragment {
+				t.Errorf("fragments of %d: group %d mode %v, want fragment", tc.frag, g, fr.ModeUsed[g])
+			}
+		}
+	}
+	// Exact mode still refuses: fragments are an approximation.
+	if _, err := Simulate(sys, Options{FieldMHz: 400, Mode: Exact, MaxSpins: 8}); !errors.Is(err, ErrTooLarge) {
+		t.Errorf("Exact mode with MaxSpins 8: error %v, want ErrTooLarge", err)
+	}
+}
+
+// TestFragmentGrowth: the fragment of a chain's end group takes its
+// neighbours in order along the chain (strongest path first) and stops at
+// the work of the given number of spins.
+func TestFragmentGrowth(t *testing.T) {
+	t.Parallel()
+	es := reduce(chain(10, 0.05), 400)
+	c := make([]int, len(es.g))
+	for i := range c {
+		c[i] = i
+	}
+	f := es.fragment(0, c, 4)
+	want := []int{0, 1, 2, 3}
+	if len(f) != len(want) {
+		t.Fatalf("fragment %v, want %v", f, want)
+	}
+	for i := range f {
+		if f[i] != want[i] {
+			t.Fatalf("fragment %v, want %v", f, want)
+		}
+	}
+	mid := es.fragment(5, c, 3)
+	if len(mid) != 3 || mid[0] != 5 || !(mid[1] == 4 || mid[1] == 6) || !(mid[2] == 4 || mid[2] == 6) || mid[1] == mid[2] {
+		t.Errorf("fragment of the middle group %v, want 5 with its two neighbours", mid)
+	}
+}
+
+// TestFragment14Accuracy measures the fragment approximation on the
+// 14-spin chain of BenchmarkCluster14 against its exact simulation, which
+// takes about a minute and 1 GB, so it runs only with SHIFTWISE_SLOW=1.
+// Reference: exact diagonalisation, as in TestFragmentApproachesExact.
+func TestFragment14Accuracy(t *testing.T) {
+	if os.Getenv("SHIFTWISE_SLOW") == "" {
+		t.Skip("set SHIFTWISE_SLOW=1 to compare fragments with the exact 14-spin simulation (about a minute, 1 GB)")
+	}
+	sys := chain(14, 0.05)
+	ex, err := Simulate(sys, Options{FieldMHz: 400, Mode: Exact, MaxSpins: 14})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, frag := range []int{6, 7, 8, 9, 10} {
+		fr, err := Simulate(sys, Options{FieldMHz: 400, Mode: Auto, FragmentSpins: frag})
+		if err != nil {
+			t.Fatal(err)
+		}
+		d := traceDiff(ex.Lines, fr.Lines, 400)
+		t.Logf("fragments of %2d spins: %6d lines (exact %d), largest trace difference %.2f%% of the tallest point", frag, len(fr.Lines), len(ex.Lines), 100*d)
+		if d > 0.025 && frag >= DefaultFragmentSpins {
+			t.Errorf("fragments of %d: trace differs from exact by %.4f, want ≤ 0.025", frag, d)
+		}
+	}
+}
