@@ -96,7 +96,7 @@ func (ev *evaluation) evaluate(ms []mplet, field float64) {
 		z := shiftDistance(s.ShiftPPM, m) / signalSD(s)
 		ev.z[i] = z
 		mc := signalMultCost(s, seenMult(s, m, ev.nhOf()), ev.nhOf()) + jCost(distinctJ(s), m.j)
-		if hostN[j] > 1 || s.Mode == "exact" {
+		if hostN[j] > 1 || secondOrder(s) {
 			mc *= 0.3
 		}
 		if hostN[j] > 1 && cleanPattern(m.mult) {
@@ -328,7 +328,7 @@ func (ev *evaluation) cautions(field float64) []string {
 		if s.LowConfidence {
 			low = append(low, s.Label)
 		}
-		if s.Mode == "exact" {
+		if secondOrder(s) {
 			exact = append(exact, s.Label)
 		}
 		if s.Exchangeable && ev.sigM[i] < 0 {

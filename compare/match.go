@@ -294,7 +294,7 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 			}
 			if !s.Exchangeable {
 				mc := signalMultCost(s, seenMult(s, m, nhOf), nhOf)
-				if cl.k > 0 || s.Mode == "exact" {
+				if cl.k > 0 || secondOrder(s) {
 					mc *= 0.3 // overlapped or strongly coupled: the shape is not its own
 				}
 				if cl.k > 0 && cleanPattern(m.mult) {
@@ -472,3 +472,8 @@ func absorbParts(sig []predict.Signal, ms []mplet, avail []bool, sigM []int, sca
 	}
 	return out
 }
+
+// secondOrder reports whether the signal's pattern was simulated with
+// strong coupling (exactly or by fragments): its shape need not read as a
+// first-order multiplet.
+func secondOrder(s predict.Signal) bool { return s.Mode == "exact" || s.Mode == "fragment" }

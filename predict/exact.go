@@ -78,41 +78,49 @@ func (s *system) groupJ(ss spinSystem, a, b, nH int) float64 {
 	return 0 // F–F and F–P couplings do not change the 1H lines to first order
 }
 
-// Bounds on the number of protons in one coupled cluster: in Auto mode a
-// larger strongly coupled cluster is computed first-order (with a warning),
-// in Exact mode a larger coupled cluster is refused. Exact simulation cost
-// grows about eightfold per added spin; 8 distinct protons (largest block 70
-// states) keep a cluster in milliseconds, 10 already take ~0.2 s of CPU
-// (see BENCHMARKS.md, spin Cluster10).
+// Bounds on coupled clusters. In Auto mode a strongly coupled cluster whose
+// exact simulation costs more than that of autoMaxSpins distinct protons
+// (largest block 126 states: a few ms) is simulated by fragments of the
+// same size (spin.Options.FragmentSpins; heptanal at 60 MHz about 0.2 s),
+// and its signals' mode is "fragment"; in Exact mode a cluster of more
+// than exactMaxNuclei protons is refused. Exact cost grows about eightfold
+// per added spin: 10 distinct protons take tens of ms (see BENCHMARKS.md,
+// spin Cluster10).
 const (
-	autoMaxNuclei  = 8
+	autoMaxSpins   = spin.DefaultFragmentSpins
 	exactMaxNuclei = 14
-	strongRatio    = spin.DefaultStrongRatio
-	farShiftPPM    = 1000 // where oversized clusters are parked (see exactLines)
 )
 
 // exactLines simulates the spin system and merges the lines back by
 // signal. The mode of a signal is "exact" when any of its groups was
-// simulated exactly. In Auto mode, the groups of a strongly coupled cluster
-// with more than autoMaxNuclei protons are moved to distinct, distant
-// shifts so that the simulation treats them (and their partners' splitting
-// by them) first-order; their own lines are then taken from the
-// first-order splitting.
+// simulated exactly, "fragment" when by fragments.
 func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 	ss := s.buildSpin()
-	parked, err := s.checkClusters(&ss, opt)
-	if err != nil {
+	if err := s.checkClusters(&ss, opt); err != nil {
 		return nil, nil, err
 	}
-	res, err := spin.Simulate(ss.sys, spin.Options{FieldMHz: opt.FieldMHz, Mode: opt.Mode})
+	so := spin.Options{FieldMHz: opt.FieldMHz, Mode: opt.Mode}
+	if opt.Mode == spin.Auto {
+		so.MaxSpins, so.FragmentSpins = autoMaxSpins, autoMaxSpins
+	}
+	res, err := spin.Simulate(ss.sys, so)
 	if err != nil {
 		return nil, nil, err
 	}
 	modes := s.modes("first-order")
 	for g, m := range res.ModeUsed {
-		if env := ss.groupEnv[g]; env >= 0 && m == spin.Exact && !parked[env] {
+		env := ss.groupEnv[g]
+		switch {
+		case env < 0:
+		case m == spin.Fragment:
+			modes[env] = "fragment"
+		case m == spin.Exact && modes[env] != "fragment":
 			modes[env] = "exact"
 		}
+	}
+	// The spin groups are named after their signals.
+	for _, n := range res.Notes {
+		s.warnings = append(s.warnings, strings.Replace(n, "groups ", "signals ", 1))
 	}
 	type key struct {
 		env int
@@ -121,7 +129,7 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 	sum := map[key]float64{}
 	for _, l := range res.Lines {
 		env := ss.groupEnv[l.Group]
-		if env < 0 || parked[env] {
+		if env < 0 {
 			continue
 		}
 		sum[key{env, int64(math.Round(l.Hz * 1e3))}] += l.Intensity
@@ -132,14 +140,6 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 			continue
 		}
 		out = append(out, Line{PPM: round(float64(k.mHz)/1e3/opt.FieldMHz, 1e-5), Intensity: round(in, 1e-6), Signal: s.envs[k.env].env.Label})
-	}
-	for env := range parked {
-		e := &s.envs[env]
-		ls := []hzLine{{0, float64(e.env.NH)}}
-		for _, ps := range e.partners {
-			ls = split(ls, math.Abs(ps.j), ps.n)
-		}
-		out = append(out, toLines(ls, e.shift, opt.FieldMHz, e.env.Label)...)
 	}
 	order := map[string]int{}
 	for i := range s.envs {
@@ -154,13 +154,15 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 	return out, modes, nil
 }
 
-// checkClusters finds the coupled clusters of proton groups (by strong
-// couplings in Auto mode, by any coupling in Exact mode). In Exact mode a
-// cluster above exactMaxNuclei is an error wrapping spin.ErrTooLarge; in
-// Auto mode a cluster above autoMaxNuclei is parked at distant shifts and
-// its environments are returned. A cluster of a single proton group is
-// exempt from both bounds.
-func (s *system) checkClusters(ss *spinSystem, opt Options) (map[int]bool, error) {
+// checkClusters refuses, in Exact mode, a coupled cluster of more than
+// exactMaxNuclei protons with an error wrapping spin.ErrTooLarge. A cluster
+// of a single proton group (the 12 H of TMS, a tert-butyl) is one
+// composite spin and is exempt. (Auto mode needs no check: spin.Simulate
+// simulates an oversized strongly coupled cluster by fragments.)
+func (s *system) checkClusters(ss *spinSystem, opt Options) error {
+	if opt.Mode != spin.Exact {
+		return nil
+	}
 	n := len(ss.sys.Groups)
 	parent := make([]int, n)
 	for i := range parent {
@@ -174,12 +176,7 @@ func (s *system) checkClusters(ss *spinSystem, opt Options) (map[int]bool, error
 		return x
 	}
 	for _, c := range ss.sys.Couplings {
-		ga, gb := ss.sys.Groups[c.A], ss.sys.Groups[c.B]
-		if !ga.IsProton() || !gb.IsProton() {
-			continue
-		}
-		dnu := math.Abs(ga.ShiftPPM-gb.ShiftPPM) * opt.FieldMHz
-		if opt.Mode == spin.Exact || dnu < strongRatio*math.Abs(c.JHz) {
+		if ss.sys.Groups[c.A].IsProton() && ss.sys.Groups[c.B].IsProton() {
 			parent[find(c.A)] = find(c.B)
 		}
 	}
@@ -190,30 +187,11 @@ func (s *system) checkClusters(ss *spinSystem, opt Options) (map[int]bool, error
 			groups[find(g)]++
 		}
 	}
-	parked := map[int]bool{}
 	for g, gr := range ss.sys.Groups {
-		r := find(g)
-		switch {
-		case !gr.IsProton():
-		case groups[r] == 1:
-			// A lone group of equivalent protons (the 12 H of TMS, a
-			// tert-butyl) is one composite spin: its size costs the
-			// simulation nothing, so it is never parked or refused.
-		case opt.Mode == spin.Exact && size[r] > exactMaxNuclei:
-			return nil, fmt.Errorf("signal %s is in a coupled cluster of %d protons, more than the %d that exact simulation allows: %w; use --mode auto or first-order",
+		if r := find(g); gr.IsProton() && groups[r] > 1 && size[r] > exactMaxNuclei {
+			return fmt.Errorf("signal %s is in a coupled cluster of %d protons, more than the %d that exact simulation allows: %w; use --mode auto or first-order",
 				gr.Name, size[r], exactMaxNuclei, spin.ErrTooLarge)
-		case opt.Mode == spin.Auto && size[r] > autoMaxNuclei:
-			parked[ss.groupEnv[g]] = true
-			ss.sys.Groups[g].ShiftPPM = farShiftPPM + 10*float64(g)
 		}
 	}
-	if len(parked) > 0 {
-		var labels []string
-		for env := range parked {
-			labels = append(labels, s.envs[env].env.Label)
-		}
-		sort.Strings(labels)
-		s.warnings = append(s.warnings, fmt.Sprintf("signals %s form a strongly coupled cluster too large to simulate exactly; first-order patterns used for them", strings.Join(labels, ", ")))
-	}
-	return parked, nil
+	return nil
 }

@@ -24,7 +24,7 @@ type Signal struct {
 	Multiplicity  string     `json:"multiplicity"`
 	Exchangeable  bool       `json:"exchangeable"`
 	LowConfidence bool       `json:"low_confidence"`
-	Mode          string     `json:"mode"` // "first-order" or "exact"
+	Mode          string     `json:"mode"` // "first-order", "exact" or "fragment" (approximate second-order, see spin.Fragment)
 	Couplings     []Coupling `json:"couplings"`
 	Rules         []string   `json:"rules,omitempty"` // increments applied, for the reasons shown to the user
 }

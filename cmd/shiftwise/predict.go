@@ -202,8 +202,8 @@ func predictFlags(s predict.Signal) []string {
 	if s.LowConfidence {
 		fl = append(fl, "low confidence")
 	}
-	if s.Mode == "exact" {
-		fl = append(fl, "exact")
+	if s.Mode == "exact" || s.Mode == "fragment" {
+		fl = append(fl, s.Mode)
 	}
 	return fl
 }

@@ -7,7 +7,6 @@ import (
 	"io"
 	"math"
 	"path/filepath"
-	"slices"
 	"strings"
 	"text/tabwriter"
 
@@ -71,7 +70,7 @@ Modes: exact diagonalises each coupled cluster; first-order splits every group
 by its partners (Pascal's triangle); auto (default) is exact where |Δν| < 10·|J|
 and first-order elsewhere. In auto mode a strongly coupled cluster too large to
 diagonalise (more than 12 distinct spins) is simulated by fragments: each group
-with its most strongly coupled neighbours, up to 8 spins, an approximation
+with its most strongly coupled neighbours, up to 9 spins, an approximation
 marked "fragment" in the mode column. 19F and 31P split the 1H lines but are
 not shown.
 
@@ -145,8 +144,8 @@ func runSimulate(f *Factory, o *simulateOptions) error {
 	if err != nil {
 		return withCode(exitError, fmt.Errorf("%s: %w", o.file, err))
 	}
-	if slices.Contains(res.ModeUsed, spin.Fragment) {
-		fmt.Fprintf(f.Err, "shiftwise: note: %s: a strongly coupled cluster is too large to simulate exactly; simulated by fragments of up to %d spins (approximate, lines marked \"fragment\")\n", o.file, spin.DefaultFragmentSpins)
+	for _, n := range res.Notes {
+		fmt.Fprintf(f.Err, "shiftwise: note: %s: %s\n", o.file, n)
 	}
 	out := simulateResult(sf, res, field)
 	if len(out.Lines) == 0 {

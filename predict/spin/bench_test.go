@@ -48,7 +48,7 @@ func BenchmarkCluster14(b *testing.B) {
 
 // BenchmarkCluster14Auto is the same 14-spin cluster in Auto mode: too
 // large to diagonalise at the default MaxSpins, it is simulated by
-// fragments of 8 spins (an approximation; see TestFragment14Accuracy).
+// fragments of 9 spins (an approximation; see TestFragment14Accuracy).
 func BenchmarkCluster14Auto(b *testing.B) {
 	benchSim(b, chain(14, 0.05), Options{FieldMHz: 400, Mode: Auto})
 }

@@ -69,10 +69,12 @@
 // with an error wrapping ErrTooLarge that suggests first-order mode, rather
 // than exhausting memory. Auto mode instead simulates such a cluster by
 // fragments (fragment.go): each group with its most strongly coupled
-// neighbours, up to Options.FragmentSpins (default 8) spins, keeping only
+// neighbours, up to Options.FragmentSpins (default 9) spins, keeping only
 // that group's lines; Result.ModeUsed reports Fragment for its groups. On a
-// 14-spin chain with Δν/J ≈ 3 this is within about 1.3% of the exact
-// spectrum's height at a small fraction of the cost (TestFragment14Accuracy). Composite particles make clusters of CH3 and CH2
+// 14-spin chain with Δν/J ≈ 3 this is within about 0.7% of the exact
+// spectrum's height at a small fraction of the cost (TestFragment14Accuracy);
+// clusters of nearly coincident shifts need larger fragments (see
+// DefaultFragmentSpins). Composite particles make clusters of CH3 and CH2
 // groups much cheaper than their number of nuclei suggests.
 //
 // Blocks are diagonalised in waves of GOMAXPROCS blocks, and the lines

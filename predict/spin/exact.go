@@ -108,21 +108,36 @@ func (es *esys) exactCost(c []int, maxSpins int) (float64, error) {
 	}
 	limit, budget := maxBlock(maxSpins), workBudget(maxSpins)
 	cost, biggest := 0.0, 0.0
-	ncombo := 0
-	_ = combos(ns, func(twoF []int, _ float64) error {
-		ncombo++
+	ncombo := 1.0
+	for _, n := range ns {
+		ncombo *= float64(len(composites(n)))
+	}
+	add := func(twoF []int) {
 		for _, d := range blockSizes(twoF) {
 			cost += d * d * d
 			biggest = math.Max(biggest, d)
 		}
-		return nil
-	})
+	}
+	// The combination of the largest composite spins has the largest
+	// blocks: check it alone first, and stop the enumeration (exponential in
+	// the number of groups) as soon as the budget is exceeded.
+	add(ns)
+	if biggest <= limit && cost <= budget {
+		cost = 0
+		_ = combos(ns, func(twoF []int, _ float64) error {
+			add(twoF)
+			if cost > budget {
+				return ErrTooLarge
+			}
+			return nil
+		})
+	}
 	if biggest > limit || cost > budget {
 		names := make([]string, len(c))
 		for i, g := range c {
 			names[i] = fmt.Sprintf("%q", es.g[g].name)
 		}
-		return 0, fmt.Errorf("spin: cluster of groups %s (%d nuclei, %d composite-spin choices, largest Mz block %.0f states) exceeds the exact-simulation limit of %d spins (block %.0f states): %w; use first-order mode (--mode first-order)",
+		return 0, fmt.Errorf("spin: cluster of groups %s (%d nuclei, %.0f composite-spin choices, largest Mz block %.0f states) exceeds the exact-simulation limit of %d spins (block %.0f states): %w; use first-order mode (--mode first-order)",
 			strings.Join(names, ", "), nuclei, ncombo, biggest, maxSpins, limit, ErrTooLarge)
 	}
 	return cost, nil

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"os"
+	"strings"
 	"testing"
 )
 
@@ -127,5 +128,40 @@ func TestFragment14Accuracy(t *testing.T) {
 		if d > 0.025 && frag >= DefaultFragmentSpins {
 			t.Errorf("fragments of %d: trace differs from exact by %.4f, want ≤ 0.025", frag, d)
 		}
+	}
+}
+
+// TestFragmentNotesAndLimit: Auto mode says where it approximated. A
+// 14-spin chain is simulated by fragments with a note; a 40-spin chain,
+// more groups than MaxFragmentGroups, falls back to first-order with a
+// note, and its end group is then the first-order doublet of doublets of
+// its two partners (J = 7 and 1.5 Hz; Pascal's triangle).
+func TestFragmentNotesAndLimit(t *testing.T) {
+	t.Parallel()
+	res, err := Simulate(chain(14, 0.05), Options{FieldMHz: 400})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.Notes) != 1 || !strings.Contains(res.Notes[0], "fragments") {
+		t.Errorf("14 spins: notes %q, want one about fragments", res.Notes)
+	}
+	res, err = Simulate(chain(40, 0.01), Options{FieldMHz: 400})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.Notes) != 1 || !strings.Contains(res.Notes[0], "first-order") {
+		t.Errorf("40 spins: notes %q, want one about first-order", res.Notes)
+	}
+	var end []Line
+	for _, l := range res.Lines {
+		if l.Group == 0 {
+			end = append(end, l)
+		}
+	}
+	if res.ModeUsed[0] != FirstOrder || len(end) != 4 {
+		t.Fatalf("40 spins: end group mode %v with %d lines, want first-order dd", res.ModeUsed[0], len(end))
+	}
+	if d := end[3].Hz - end[0].Hz; math.Abs(d-8.5) > 1e-9 {
+		t.Errorf("dd spans %.4f Hz, want 7 + 1.5", d)
 	}
 }

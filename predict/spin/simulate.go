@@ -61,15 +61,22 @@ func Simulate(sys System, opt Options) (*Result, error) {
 		mode := Exact
 		cl, dropped, err := es.simulateCluster(c, opt)
 		if opt.Mode == Auto && len(c) > 1 && errors.Is(err, ErrTooLarge) {
-			mode = Fragment
-			cl, dropped, err = es.fragmentLines(c, opt)
+			if len(c) <= MaxFragmentGroups {
+				mode = Fragment
+				cl, dropped, err = es.fragmentLines(c, opt)
+				res.Notes = append(res.Notes, fmt.Sprintf("groups %s form a strongly coupled cluster too large to simulate exactly; simulated by fragments of up to %d spins (approximate second-order patterns)", es.names(c), fragSpins(opt)))
+			} else {
+				mode = FirstOrder
+				cl, dropped, err = es.firstOrderLines(c)
+				res.Notes = append(res.Notes, fmt.Sprintf("groups %s form a strongly coupled cluster of %d groups, too large to simulate exactly or by fragments (at most %d groups); first-order patterns used", es.names(c), len(c), MaxFragmentGroups))
+			}
 		}
 		if err != nil {
 			return nil, err
 		}
 		res.Dropped += dropped
 		lines = append(lines, cl...)
-		if opt.Mode == Exact || len(c) > 1 {
+		if mode != FirstOrder && (opt.Mode == Exact || len(c) > 1) {
 			for _, eg := range c {
 				for _, m := range es.g[eg].members {
 					res.ModeUsed[m] = mode
@@ -319,6 +326,12 @@ func (es *esys) partners(c []int) []int {
 // simulateCluster returns the lines of the groups of cluster c, including the
 // effect of all outside partners.
 func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, float64, error) {
+	return es.simulateGroups(c, opt, -1)
+}
+
+// simulateGroups is simulateCluster keeping only the lines of group keep
+// (all groups when keep < 0) before the first-order splitting by partners.
+func (es *esys) simulateGroups(c []int, opt Options, keep int) ([]rawLine, float64, error) {
 	ps := es.partners(c)
 	if len(c) == 1 && opt.Mode != Exact {
 		g := c[0]
@@ -345,6 +358,9 @@ func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, float64, error
 	lines, dropped, err := es.exactLines(c, ps[:k])
 	if err != nil {
 		return nil, 0, err
+	}
+	if keep >= 0 {
+		lines = slices.DeleteFunc(lines, func(l rawLine) bool { return l.eg != keep })
 	}
 	lines, err = es.splitBy(mergeRaw(lines), ps[k:])
 	return lines, dropped, err

@@ -87,7 +87,7 @@ type Options struct {
 	// In Auto mode such a cluster is simulated by fragments instead.
 	MaxSpins int
 	// FragmentSpins bounds the fragments of an oversized cluster in Auto
-	// mode in the same way. Zero means DefaultFragmentSpins (8); at most 16.
+	// mode in the same way. Zero means DefaultFragmentSpins (9); at most 16.
 	FragmentSpins int
 }
 
@@ -114,4 +114,8 @@ type Result struct {
 	// MinLine, which are not listed: the lines plus Dropped sum to the
 	// number of 1H nuclei.
 	Dropped float64
+	// Notes says where Auto mode had to approximate: clusters simulated by
+	// fragments, or computed first-order because they were too large even
+	// for fragments.
+	Notes []string
 }
