@@ -2,6 +2,7 @@ package spin
 
 import (
 	"math"
+	"runtime"
 
 	"gonum.org/v1/gonum/blas"
 	lapackgo "gonum.org/v1/gonum/lapack/gonum"
@@ -87,13 +88,33 @@ func (rb *rotBatch) flush(z []float64, n int) {
 	if len(rb.sweeps) == 0 {
 		return
 	}
+	// Rows are independent: large matrices are shared among up to
+	// GOMAXPROCS goroutines in runs of rows that are multiples of 4.
+	parts := min(runtime.GOMAXPROCS(0), n/minFlushRows)
+	if parts <= 1 {
+		rb.apply(z, n, 0, n)
+	} else {
+		per := (n/parts + 3) &^ 3
+		parallel(parts, func(p int) {
+			rb.apply(z, n, min(p*per, n), min((p+1)*per, n))
+		})
+	}
+	rb.c, rb.s, rb.sweeps = rb.c[:0], rb.s[:0], rb.sweeps[:0]
+}
+
+// minFlushRows is the number of rows below which flush does not split its
+// work among goroutines.
+const minFlushRows = 64
+
+// apply applies the stored rotations to rows lo … hi−1 of z.
+func (rb *rotBatch) apply(z []float64, n, lo, hi int) {
 	// Rotation i takes the value of element i+1 just written by rotation
 	// i+1 (h, kept in a register) and element i (x): element i+1 is final,
 	// the new element i is carried to rotation i−1. Within one row this is
 	// a chain of dependent operations; four rows give four independent
 	// chains.
-	k := 0
-	for ; k+4 <= n; k += 4 {
+	k := lo
+	for ; k+4 <= hi; k += 4 {
 		r0 := z[k*n : (k+1)*n]
 		r1 := z[(k+1)*n : (k+2)*n]
 		r2 := z[(k+2)*n : (k+3)*n]
@@ -115,7 +136,7 @@ func (rb *rotBatch) flush(z []float64, n int) {
 			r0[lo], r1[lo], r2[lo], r3[lo] = h0, h1, h2, h3
 		}
 	}
-	for ; k < n; k++ {
+	for ; k < hi; k++ {
 		row := z[k*n : (k+1)*n]
 		for _, sw := range rb.sweeps {
 			cs := rb.c[sw.off : sw.off+sw.hi-sw.lo+1]
@@ -131,7 +152,6 @@ func (rb *rotBatch) flush(z []float64, n int) {
 			row[sw.lo] = h
 		}
 	}
-	rb.c, rb.s, rb.sweeps = rb.c[:0], rb.s[:0], rb.sweeps[:0]
 }
 
 // tql finds the eigenvalues (into d) and eigenvectors (rotations applied to
