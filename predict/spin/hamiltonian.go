@@ -443,20 +443,39 @@ func (b *basis) sharesDirect(blk int, e0, e1 eigen, grps []int, sig []transition
 	v0t.CloneFrom(e0.vecs.T())
 	v1t.CloneFrom(e1.vecs.T())
 	g, d0 := len(grps), len(e0.vals)
-	u := make([]float64, g*d0)
-	cur := -1
-	for t, tr := range sig {
-		if tr.j != cur {
-			cur = tr.j
-			clear(u)
-			y := v1t.RawRowView(tr.j)
-			for _, e := range els {
-				u[int(e.k)*d0+int(e.s)] += e.c * y[e.r]
+	// Transitions are shared among goroutines in runs that start at a new
+	// lower state j, each with its own U; large products only (the other
+	// blocks of the wave may keep the cores busy).
+	parts := 1
+	if float64(len(sig))*float64(g*d0) > 4e6 {
+		parts = runtime.GOMAXPROCS(0)
+	}
+	bounds := []int{0}
+	for p := 1; p < parts; p++ {
+		t := max(len(sig)*p/parts, bounds[len(bounds)-1])
+		for t < len(sig) && t > 0 && sig[t].j == sig[t-1].j {
+			t++
+		}
+		bounds = append(bounds, t)
+	}
+	bounds = append(bounds, len(sig))
+	parallel(len(bounds)-1, func(p int) {
+		u := make([]float64, g*d0)
+		cur := -1
+		for t := bounds[p]; t < bounds[p+1]; t++ {
+			tr := sig[t]
+			if tr.j != cur {
+				cur = tr.j
+				clear(u)
+				y := v1t.RawRowView(tr.j)
+				for _, e := range els {
+					u[int(e.k)*d0+int(e.s)] += e.c * y[e.r]
+				}
+			}
+			x := v0t.RawRowView(tr.i)
+			for k := 0; k < g; k++ {
+				sh[t*g+k] = floats.Dot(u[k*d0:(k+1)*d0], x) * tr.a
 			}
 		}
-		x := v0t.RawRowView(tr.i)
-		for k := 0; k < g; k++ {
-			sh[t*g+k] = floats.Dot(u[k*d0:(k+1)*d0], x) * tr.a
-		}
-	}
+	})
 }

@@ -457,9 +457,14 @@ func sortRaw(lines []rawLine) {
 		}
 		copy(lines, tmp)
 	}
-	for g := 0; g < ng; g++ {
-		radixByHz(lines[start[g]:start[g+1]], tmp[start[g]:start[g+1]])
+	sortGroup := func(g int) { radixByHz(lines[start[g]:start[g+1]], tmp[start[g]:start[g+1]]) }
+	if len(lines) < 1<<15 {
+		for g := 0; g < ng; g++ {
+			sortGroup(g)
+		}
+		return
 	}
+	parallel(ng, sortGroup) // groups are independent
 }
 
 // hzKey maps a frequency to an integer of the same order.
