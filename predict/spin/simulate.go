@@ -189,6 +189,17 @@ func reduce(sys System, field float64) *esys {
 	for _, c := range sys.Couplings {
 		j[c.A][c.B], j[c.B][c.A] = c.JHz, c.JHz
 	}
+	// Non-zero couplings of each group, by partner index: comparing these
+	// keeps the equivalence test linear in the couplings, not in the
+	// groups (a long chain has hundreds of CH2 groups of one shift).
+	nz := make([][]pairJ, n)
+	for a := range j {
+		for c, v := range j[a] {
+			if v != 0 {
+				nz[a] = append(nz[a], pairJ{c, v})
+			}
+		}
+	}
 	rep := make([]int, n)
 	for i := range rep {
 		rep[i] = -1
@@ -202,7 +213,7 @@ func reduce(sys System, field float64) *esys {
 		ga := sys.Groups[a]
 		eg := egroup{nu: ga.ShiftPPM * field, n: ga.Count, proton: ga.IsProton(), members: []int{a}, name: ga.Name}
 		for b := a + 1; b < n; b++ {
-			if rep[b] < 0 && equivalent(sys.Groups, j, a, b) {
+			if rep[b] < 0 && equivalent(sys.Groups, nz, a, b) {
 				rep[b] = rep[a]
 				eg.n += sys.Groups[b].Count
 				eg.members = append(eg.members, b)
@@ -225,15 +236,35 @@ func reduce(sys System, field float64) *esys {
 	return es
 }
 
-func equivalent(gs []Group, j [][]float64, a, b int) bool {
+// pairJ is a coupling to group c.
+type pairJ struct {
+	c int
+	j float64
+}
+
+// equivalent reports whether groups a and b are magnetically equivalent:
+// same nucleus and shift, and the same coupling to every other group (nz
+// lists each group's non-zero couplings in order of partner).
+func equivalent(gs []Group, nz [][]pairJ, a, b int) bool {
 	if gs[a].IsProton() != gs[b].IsProton() || (!gs[a].IsProton() && gs[a].Nucleus != gs[b].Nucleus) {
 		return false
 	}
 	if math.Abs(gs[a].ShiftPPM-gs[b].ShiftPPM) > equivTolPPM {
 		return false
 	}
-	for c := range gs {
-		if c != a && c != b && math.Abs(j[a][c]-j[b][c]) > equivTolHz {
+	x, y := nz[a], nz[b]
+	for len(x) > 0 || len(y) > 0 {
+		var c int
+		var ja, jb float64
+		switch {
+		case len(y) == 0 || (len(x) > 0 && x[0].c < y[0].c):
+			c, ja, x = x[0].c, x[0].j, x[1:]
+		case len(x) == 0 || y[0].c < x[0].c:
+			c, jb, y = y[0].c, y[0].j, y[1:]
+		default:
+			c, ja, jb, x, y = x[0].c, x[0].j, y[0].j, x[1:], y[1:]
+		}
+		if c != a && c != b && math.Abs(ja-jb) > equivTolHz {
 			return false
 		}
 	}
