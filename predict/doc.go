@@ -33,11 +33,14 @@
 // the lines are merged back by signal. 19F and 31P are heteronuclear groups
 // that couple but produce no 1H lines. Couplings below 0.7 Hz are left out
 // of the simulation (they vanish in the line width and would join large
-// clusters). In Auto mode a strongly coupled cluster (|Δν| < 10|J|) of more
-// than 8 protons is computed first-order, with a warning, and any failure
-// of the simulation falls back to first-order for the whole molecule; in
-// Exact mode a coupled cluster of more than 14 protons is refused with an
-// error suggesting another mode.
+// clusters). In Auto mode a strongly coupled cluster (|Δν| < 10|J|) costing
+// more than 9 distinct protons to diagonalise is simulated by fragments
+// (spin.Fragment: each group with its most strongly coupled neighbours; the
+// signal's mode is "fragment" and a warning says so), one of more than 32
+// groups is computed first-order with a warning, and any failure of the
+// simulation falls back to first-order for the whole molecule; in Exact
+// mode a coupled cluster of more than 14 protons is refused with an error
+// suggesting another mode.
 //
 // # Multiplicity names
 //

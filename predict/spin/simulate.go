@@ -379,9 +379,13 @@ func (es *esys) simulateGroups(c []int, opt Options, keep int) ([]rawLine, float
 	budget := workBudget(opt.MaxSpins)
 	nconf := 1.0
 	k := 0
+	limit := float64(maxConfigs)
+	if keep >= 0 {
+		limit = fragmentConfigs
+	}
 	for ; k < len(ps); k++ {
 		next := nconf * float64(es.g[ps[k]].n+1)
-		if next > maxConfigs || next*cost > budget {
+		if next > limit || next*cost > budget {
 			break
 		}
 		nconf = next
