@@ -173,10 +173,8 @@ func (s *sink) all() []rawLine {
 // diagonalised, and the lines between neighbouring blocks computed, on up to
 // GOMAXPROCS goroutines; the result does not depend on their number.
 //
-// The blocks are processed in waves of GOMAXPROCS blocks: a wave is
-// diagonalised, then the lines between it and the previous wave are
-// computed, and only the last block of the wave is kept for the next one,
-// so at most GOMAXPROCS+1 blocks' eigenvectors are held at once.
+// The blocks are scheduled by schedule: at most GOMAXPROCS+2 blocks'
+// eigenvectors are held at once.
 func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 	if len(spins) == 0 {
 		return nil
@@ -193,29 +191,19 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 	if sym {
 		use = nb/2 + 1
 	}
-	width := max(1, min(runtime.GOMAXPROCS(0), use))
-	for lo := 0; lo < use; lo += width {
-		hi := min(lo+width, use)
-		parallel(hi-lo, func(k int) {
-			if blk := lo + k; sym && nb%2 == 1 && blk == nb/2 {
-				eig[blk], errs[blk] = b.diagonaliseMirror(blk, jm, perm)
-			} else {
-				eig[blk], errs[blk] = b.diagonalise(blk, jm)
-			}
-		})
-		if err := errors.Join(errs[lo:hi]...); err != nil {
-			return err
+	diag := func(blk int) {
+		if sym && nb%2 == 1 && blk == nb/2 {
+			eig[blk], errs[blk] = b.diagonaliseMirror(blk, jm, perm)
+		} else {
+			eig[blk], errs[blk] = b.diagonalise(blk, jm)
 		}
-		// Pairs (blk, blk+1) with blk+1 in this wave.
-		first := max(lo-1, 0)
-		parallel(hi-1-first, func(k int) {
-			blk := first + k
-			parts[blk] = sink{scale: dst.scale, eg: dst.eg}
-			b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
-		})
-		for blk := first; blk < hi-1; blk++ {
-			eig[blk] = eigen{}
-		}
+	}
+	pair := func(blk int) {
+		parts[blk] = sink{scale: dst.scale, eg: dst.eg}
+		b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
+	}
+	if err := schedule(use, runtime.GOMAXPROCS(0), diag, pair, func(blk int) error { return errs[blk] }, func(blk int) { eig[blk] = eigen{} }); err != nil {
+		return err
 	}
 	if sym {
 		egMap := map[int]int{}
@@ -235,6 +223,105 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 		dst.dropped += parts[i].dropped
 	}
 	return nil
+}
+
+// schedule runs diag(0) … diag(n−1) and pair(0) … pair(n−2), where pair(b)
+// needs diag(b) and diag(b+1), on `workers` goroutines. A worker takes the
+// lowest pair whose blocks are ready, otherwise the next diagonalisation,
+// which may start only while fewer than workers+2 blocks are held (a block
+// is released, by release(b), once the pairs on both sides are done), so
+// memory stays bounded while a large block is diagonalised alongside
+// smaller ones. After a diagonalisation failed (failed(b) != nil) no new
+// work starts, and the errors are returned.
+func schedule(n, workers int, diag, pair func(int), failed func(int) error, release func(int)) error {
+	if n == 0 {
+		return nil
+	}
+	var mu sync.Mutex
+	cond := sync.NewCond(&mu)
+	diagDone := make([]bool, n)
+	pairState := make([]int8, max(n-1, 0)) // 0 waiting, 1 running, 2 done
+	nextDiag, held, lowPair, running := 0, 0, 0, 0
+	var errs []error
+	// next returns the task to run (isPair, index) or ok=false when
+	// nothing is left; it waits while nothing is ready. mu is held.
+	next := func() (isPair bool, k int, ok bool) {
+		for {
+			if errs != nil {
+				return false, 0, false
+			}
+			for lowPair < n-1 && pairState[lowPair] == 2 {
+				lowPair++
+			}
+			for p := lowPair; p < n-1 && p+1 < nextDiag; p++ {
+				if pairState[p] == 0 && diagDone[p] && diagDone[p+1] {
+					pairState[p] = 1
+					return true, p, true
+				}
+			}
+			if nextDiag < n && held < workers+2 {
+				nextDiag++
+				held++
+				return false, nextDiag - 1, true
+			}
+			if lowPair >= n-1 && nextDiag >= n {
+				return false, 0, false
+			}
+			if running == 0 { // nothing running and nothing ready: a bug
+				errs = append(errs, errors.New("spin: block scheduling stalled"))
+				return false, 0, false
+			}
+			cond.Wait()
+		}
+	}
+	done := func(b int) bool { // block b no longer needed
+		return (b == 0 || pairState[b-1] == 2) && (b == n-1 || pairState[b] == 2)
+	}
+	var wg sync.WaitGroup
+	for w := 0; w < max(1, min(workers, n)); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			mu.Lock()
+			defer mu.Unlock()
+			for {
+				isPair, k, ok := next()
+				if !ok {
+					cond.Broadcast()
+					return
+				}
+				running++
+				mu.Unlock()
+				if isPair {
+					pair(k)
+				} else {
+					diag(k)
+				}
+				mu.Lock()
+				running--
+				if isPair {
+					pairState[k] = 2
+					for _, b := range []int{k, k + 1} {
+						if done(b) {
+							release(b)
+							held--
+						}
+					}
+				} else {
+					diagDone[k] = true
+					if err := failed(k); err != nil {
+						errs = append(errs, err)
+					} else if n == 1 {
+						release(k)
+						held--
+					}
+				}
+				cond.Broadcast()
+			}
+		}()
+	}
+	wg.Wait()
+	return errors.Join(errs...)
 }
 
 // parallel calls fn(0) … fn(n−1) on up to GOMAXPROCS goroutines, handing
