@@ -73,7 +73,9 @@ func lower(twoF int, m float64) float64 {
 // cluster-local matrix jm) directly in the block's states.
 func (b *basis) hamiltonian(blk int, jm [][]float64) *mat.SymDense {
 	states := b.blocks[blk]
-	h := mat.NewSymDense(len(states), nil)
+	data := getFloats(len(states) * len(states))
+	clear(data)
+	h := mat.NewSymDense(len(states), data)
 	ms := make([]float64, len(b.spins))
 	for i, s := range states {
 		diag := 0.0
@@ -158,13 +160,17 @@ func (s *sink) all() []rawLine {
 	for g := 1; g <= ng; g++ {
 		next[g] += next[g-1]
 	}
-	out := make([]rawLine, n)
+	out := getLines(n)
 	for _, c := range chunks {
 		for _, l := range c {
 			out[next[l.eg]] = l
 			next[l.eg]++
 		}
 	}
+	for _, c := range s.chunks {
+		putLines(c)
+	}
+	s.chunks = nil
 	return out
 }
 
@@ -202,7 +208,12 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 		parts[blk] = sink{scale: dst.scale, eg: dst.eg}
 		b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
 	}
-	if err := schedule(use, runtime.GOMAXPROCS(0), diag, pair, func(blk int) error { return errs[blk] }, func(blk int) { eig[blk] = eigen{} }); err != nil {
+	if err := schedule(use, runtime.GOMAXPROCS(0), diag, pair, func(blk int) error { return errs[blk] }, func(blk int) {
+		if eig[blk].vecs != nil {
+			putFloats(eig[blk].vecs.RawMatrix().Data)
+		}
+		eig[blk] = eigen{}
+	}); err != nil {
 		return err
 	}
 	if sym {
@@ -372,10 +383,12 @@ type transition struct {
 // A(j,i)², shared among groups as A_g(j,i)·A(j,i), A_g = V1ᵀ F−_g V0.
 func (b *basis) lines(blk int, e0, e1 eigen, dst *sink) {
 	d0, d1 := len(e0.vals), len(e1.vals)
-	w := mat.NewDense(d1, d0, nil)
+	w := mat.NewDense(d1, d0, getFloats(d1*d0))
 	b.lowerInto(w, blk, e0, -1)
-	a := mat.NewDense(d1, d0, nil)
+	a := mat.NewDense(d1, d0, getFloats(d1*d0))
 	a.Mul(e1.vecs.T(), w)
+	defer putFloats(w.RawMatrix().Data)
+	defer putFloats(a.RawMatrix().Data)
 	nsig := 0
 	for _, v := range a.RawMatrix().Data {
 		if in := v * v; in*dst.scale >= MinLine && in >= forbidden {
@@ -424,6 +437,9 @@ func (b *basis) lines(blk int, e0, e1 eigen, dst *sink) {
 				nout++
 			}
 		}
+	}
+	if dst.out == nil {
+		dst.out = getLines(nout)[:0]
 	}
 	dst.out = slices.Grow(dst.out, nout)
 	for t, tr := range sig {
@@ -486,7 +502,8 @@ func (b *basis) shares(blk int, e0, e1 eigen, grps []int, sig []transition, w, a
 		b.sharesDirect(blk, e0, e1, grps, sig, sh)
 		return sh
 	}
-	ag := mat.NewDense(d1, d0, nil)
+	ag := mat.NewDense(d1, d0, getFloats(d1*d0))
+	defer putFloats(ag.RawMatrix().Data)
 	for k, grp := range grps[:g-1] {
 		b.lowerInto(w, blk, e0, grp)
 		ag.Mul(e1.vecs.T(), w)
@@ -526,9 +543,14 @@ func (b *basis) sharesDirect(blk int, e0, e1 eigen, grps []int, sig []transition
 			els = append(els, elem{int32(i), int32(b.pos[s+b.stride[k]]), int32(gi[sp.grp]), lower(sp.twoF, b.m(s, k))})
 		}
 	}
-	var v0t, v1t mat.Dense
-	v0t.CloneFrom(e0.vecs.T())
-	v1t.CloneFrom(e1.vecs.T())
+	r0, c0 := e0.vecs.Dims()
+	r1, c1 := e1.vecs.Dims()
+	v0t := mat.NewDense(c0, r0, getFloats(r0*c0))
+	v1t := mat.NewDense(c1, r1, getFloats(r1*c1))
+	v0t.Copy(e0.vecs.T())
+	v1t.Copy(e1.vecs.T())
+	defer putFloats(v0t.RawMatrix().Data)
+	defer putFloats(v1t.RawMatrix().Data)
 	g, d0 := len(grps), len(e0.vals)
 	// Transitions are shared among goroutines in runs that start at a new
 	// lower state j, each with its own U; large products only (the other

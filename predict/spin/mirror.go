@@ -63,6 +63,9 @@ func mirror(spins []cspin, jm [][]float64) (perm []int, nu0 float64, ok bool) {
 // mirrorLines appends to dst the mirror images of the lines of src: at
 // 2ν0 − f, with group egMap[eg].
 func mirrorLines(dst, src *sink, nu0 float64, egMap map[int]int) {
+	if dst.out == nil {
+		dst.out = getLines(len(src.out))[:0]
+	}
 	dst.out = slices.Grow(dst.out, len(src.out))
 	for _, l := range src.out {
 		dst.out = append(dst.out, rawLine{hz: 2*nu0 - l.hz, inten: l.inten, eg: egMap[l.eg]})
@@ -97,7 +100,10 @@ func (b *basis) diagonaliseMirror(blk int, jm [][]float64, perm []int) (eigen, e
 		}
 	}
 	h := b.hamiltonian(blk, jm)
-	vecs := mat.NewDense(d, d, nil)
+	defer putFloats(h.RawSymmetric().Data)
+	vd := getFloats(d * d)
+	clear(vd)
+	vecs := mat.NewDense(d, d, vd)
 	vals := make([]float64, 0, d)
 	col := 0
 	for _, half := range []struct {
@@ -115,7 +121,8 @@ func (b *basis) diagonaliseMirror(blk int, jm [][]float64, perm []int) (eigen, e
 			}
 			return sigma[i], math.Sqrt2 / 2, half.sign * math.Sqrt2 / 2
 		}
-		a := make([]float64, n*n)
+		a := getFloats(n * n)
+		defer putFloats(a)
 		for p, i := range half.reps {
 			i2, ci, ci2 := coef(i)
 			for q := p; q < n; q++ {

@@ -75,7 +75,12 @@ func Simulate(sys System, opt Options) (*Result, error) {
 			return nil, err
 		}
 		res.Dropped += dropped
-		lines = append(lines, cl...)
+		if lines == nil {
+			lines = cl
+		} else {
+			lines = append(lines, cl...)
+			putLines(cl)
+		}
 		if mode != FirstOrder && (opt.Mode == Exact || len(c) > 1) {
 			for _, eg := range c {
 				for _, m := range es.g[eg].members {
@@ -85,6 +90,7 @@ func Simulate(sys System, opt Options) (*Result, error) {
 		}
 	}
 	res.Lines = es.distribute(sys, lines, opt.FieldMHz)
+	putLines(lines) // nothing refers to the raw lines any more
 	return res, nil
 }
 
@@ -476,7 +482,8 @@ func sortRaw(lines []rawLine) {
 	for _, l := range lines {
 		ng = max(ng, l.eg+1)
 	}
-	tmp := make([]rawLine, len(lines))
+	tmp := getLines(len(lines))
+	defer putLines(tmp)
 	start := make([]int, ng+1)
 	for _, l := range lines {
 		start[l.eg+1]++
@@ -512,36 +519,61 @@ func hzKey(hz float64) uint64 {
 }
 
 // radixByHz sorts ls by frequency (stable), using tmp (same length) as
-// scratch space; passes over bytes that all lines share are skipped.
+// scratch space. An LSD radix sort on the upper 32 bits of the key (one
+// histogram pass for its four bytes; bytes that all lines share are
+// skipped) leaves out of order only lines within about 1e-6 of each other
+// relative to their frequency; insertion on the full key finishes, and a
+// merge sort takes over should that need many moves (thousands of lines at
+// one frequency).
 func radixByHz(ls, tmp []rawLine) {
+	byKey := func(x, y rawLine) int { return cmp.Compare(hzKey(x.hz), hzKey(y.hz)) }
 	if len(ls) < 64 {
-		slices.SortStableFunc(ls, func(x, y rawLine) int { return cmp.Compare(hzKey(x.hz), hzKey(y.hz)) })
+		slices.SortStableFunc(ls, byKey)
 		return
 	}
+	var count [4][256]int
+	for _, l := range ls {
+		k := hzKey(l.hz) >> 32
+		count[0][byte(k)]++
+		count[1][byte(k>>8)]++
+		count[2][byte(k>>16)]++
+		count[3][byte(k>>24)]++
+	}
 	src, dst := ls, tmp
-	var count [256]int
-	for shift := 0; shift < 64; shift += 8 {
-		count = [256]int{}
-		for _, l := range src {
-			count[byte(hzKey(l.hz)>>shift)]++
-		}
-		if count[byte(hzKey(src[0].hz)>>shift)] == len(src) {
+	for p := range count {
+		c := &count[p]
+		shift := 32 + 8*p
+		if c[byte(hzKey(src[0].hz)>>shift)] == len(src) {
 			continue
 		}
 		pos := 0
-		for b, c := range count {
-			count[b] = pos
-			pos += c
+		for b, n := range c {
+			c[b] = pos
+			pos += n
 		}
 		for _, l := range src {
 			b := byte(hzKey(l.hz) >> shift)
-			dst[count[b]] = l
-			count[b]++
+			dst[c[b]] = l
+			c[b]++
 		}
 		src, dst = dst, src
 	}
 	if &src[0] != &ls[0] {
 		copy(ls, src)
+	}
+	budget := 8 * len(ls)
+	for i := 1; i < len(ls); i++ {
+		l := ls[i]
+		k := hzKey(l.hz)
+		j := i
+		for ; j > 0 && hzKey(ls[j-1].hz) > k; j-- {
+			ls[j] = ls[j-1]
+		}
+		ls[j] = l
+		if budget -= i - j; budget < 0 {
+			slices.SortStableFunc(ls, byKey)
+			return
+		}
 	}
 }
 
