@@ -108,11 +108,14 @@ const minFlushRows = 64
 
 // apply applies the stored rotations to rows lo … hi−1 of z.
 func (rb *rotBatch) apply(z []float64, n, lo, hi int) {
-	// Rotation i takes the value of element i+1 just written by rotation
-	// i+1 (h, kept in a register) and element i (x): element i+1 is final,
-	// the new element i is carried to rotation i−1. Within one row this is
-	// a chain of dependent operations; four rows give four independent
-	// chains.
+	// Rotation j of a sweep (stored at index j, from the bottom) mixes
+	// elements lo+j and lo+j+1 of a row; the sweep applies them from the
+	// top down. Each takes the value of element j+1 just written by rotation
+	// j+1 (h, kept in a register) and element j (x): element j+1 is final,
+	// the new element j is carried down. Within one row this is a chain of
+	// dependent operations; four rows give four independent chains. The
+	// windows w and the rotation slices have lengths the compiler can
+	// relate, so the inner loop runs without bounds checks.
 	k := lo
 	for ; k+4 <= hi; k += 4 {
 		r0 := z[k*n : (k+1)*n]
@@ -120,36 +123,46 @@ func (rb *rotBatch) apply(z []float64, n, lo, hi int) {
 		r2 := z[(k+2)*n : (k+3)*n]
 		r3 := z[(k+3)*n : (k+4)*n]
 		for _, sw := range rb.sweeps {
-			cs := rb.c[sw.off : sw.off+sw.hi-sw.lo+1]
-			ss := rb.s[sw.off : sw.off+sw.hi-sw.lo+1]
+			m := sw.hi - sw.lo + 1
+			cs := rb.c[sw.off : sw.off+m]
+			ss := rb.s[sw.off : sw.off+m]
+			w0 := r0[sw.lo : sw.lo+m+1]
+			w1 := r1[sw.lo : sw.lo+m+1]
+			w2 := r2[sw.lo : sw.lo+m+1]
+			w3 := r3[sw.lo : sw.lo+m+1]
 			ss = ss[:len(cs)]
-			hi := sw.hi
-			h0, h1, h2, h3 := r0[hi+1], r1[hi+1], r2[hi+1], r3[hi+1]
-			for t, c := range cs {
-				s := ss[t]
-				i := hi - t
-				x0, x1, x2, x3 := r0[i], r1[i], r2[i], r3[i]
-				r0[i+1], r1[i+1], r2[i+1], r3[i+1] = s*x0+c*h0, s*x1+c*h1, s*x2+c*h2, s*x3+c*h3
+			// u = w shifted by one: u[j] is element j+1 of the window.
+			u0, u1, u2, u3 := w0[1:], w1[1:], w2[1:], w3[1:]
+			u0, u1, u2, u3 = u0[:len(cs)], u1[:len(cs)], u2[:len(cs)], u3[:len(cs)]
+			w0, w1, w2, w3 = w0[:len(cs)], w1[:len(cs)], w2[:len(cs)], w3[:len(cs)]
+			h0, h1, h2, h3 := u0[m-1], u1[m-1], u2[m-1], u3[m-1]
+			for j := len(cs) - 1; j >= 0; j-- {
+				c, s := cs[j], ss[j]
+				x0, x1, x2, x3 := w0[j], w1[j], w2[j], w3[j]
+				u0[j], u1[j], u2[j], u3[j] = s*x0+c*h0, s*x1+c*h1, s*x2+c*h2, s*x3+c*h3
 				h0, h1, h2, h3 = c*x0-s*h0, c*x1-s*h1, c*x2-s*h2, c*x3-s*h3
 			}
-			lo := sw.lo
-			r0[lo], r1[lo], r2[lo], r3[lo] = h0, h1, h2, h3
+			w0[0], w1[0], w2[0], w3[0] = h0, h1, h2, h3
 		}
 	}
 	for ; k < hi; k++ {
 		row := z[k*n : (k+1)*n]
 		for _, sw := range rb.sweeps {
-			cs := rb.c[sw.off : sw.off+sw.hi-sw.lo+1]
-			ss := rb.s[sw.off : sw.off+sw.hi-sw.lo+1]
-			h := row[sw.hi+1]
-			for t, c := range cs {
-				s := ss[t]
-				i := sw.hi - t
-				x := row[i]
-				row[i+1] = s*x + c*h
+			m := sw.hi - sw.lo + 1
+			cs := rb.c[sw.off : sw.off+m]
+			ss := rb.s[sw.off : sw.off+m]
+			ss = ss[:len(cs)]
+			w := row[sw.lo : sw.lo+m+1]
+			u := w[1:][:len(cs)]
+			w = w[:len(cs)]
+			h := u[m-1]
+			for j := len(cs) - 1; j >= 0; j-- {
+				c, s := cs[j], ss[j]
+				x := w[j]
+				u[j] = s*x + c*h
 				h = c*x - s*h
 			}
-			row[sw.lo] = h
+			w[0] = h
 		}
 	}
 }
@@ -193,18 +206,21 @@ func tql(d, e, z []float64, n int) bool {
 			c, c2, c3 := 1.0, 1.0, 1.0
 			el1 := e[l+1]
 			s, s2 := 0.0, 0.0
+			// Rotation i is stored at off + i − l (from the bottom).
 			off := len(rb.c)
+			rb.c = rb.c[:off+m-l]
+			rb.s = rb.s[:off+m-l]
 			for i := m - 1; i >= l; i-- {
 				c3, c2, s2 = c2, c, s
 				g = c * e[i]
 				h = c * p
-				r = math.Hypot(p, e[i])
+				r = hypot(p, e[i])
 				e[i+1] = s * r
 				s, c = e[i]/r, p/r
 				p = c*d[i] - s*g
 				d[i+1] = h + s*(c*g+s*d[i])
-				rb.c = append(rb.c, c)
-				rb.s = append(rb.s, s)
+				rb.c[off+i-l] = c
+				rb.s[off+i-l] = s
 			}
 			rb.sweeps = append(rb.sweeps, sweep{hi: m - 1, lo: l, off: off})
 			if len(rb.c) >= maxBatch*n {
@@ -222,4 +238,15 @@ func tql(d, e, z []float64, n int) bool {
 	}
 	rb.flush(z, n)
 	return true
+}
+
+// hypot is math.Hypot with a fast path: √(p²+q²) directly when neither
+// square can overflow or lose precision to underflow (the matrix was scaled
+// into a safe range; math.Hypot's scaling remains for the rest).
+func hypot(p, q float64) float64 {
+	ap, aq := math.Abs(p), math.Abs(q)
+	if big := max(ap, aq); big > 0x1p-480 && big < 0x1p480 && min(ap, aq) > 0x1p-480 {
+		return math.Sqrt(p*p + q*q)
+	}
+	return math.Hypot(p, q)
 }
