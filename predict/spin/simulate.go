@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
 	"sort"
 )
@@ -580,12 +581,32 @@ func radixByHz(ls, tmp []rawLine) {
 // distribute shares each merged group's lines among its member groups in
 // proportion to their counts and returns the sorted output lines.
 func (es *esys) distribute(sys System, lines []rawLine, field float64) []Line {
-	out := make([]Line, 0, len(lines))
-	for _, l := range lines {
-		eg := es.g[l.eg]
-		for _, m := range eg.members {
-			f := float64(sys.Groups[m].Count) / float64(eg.n)
-			out = append(out, Line{Hz: l.hz, PPM: l.hz / field, Intensity: l.inten * f, Group: m})
+	var out []Line
+	single := true
+	for _, g := range es.g {
+		single = single && len(g.members) == 1
+	}
+	if single {
+		// One line per raw line: converted in parallel for long lists.
+		out = make([]Line, len(lines))
+		parts := 1
+		if len(lines) >= 1<<15 {
+			parts = runtime.GOMAXPROCS(0)
+		}
+		parallel(parts, func(p int) {
+			for i := len(lines) * p / parts; i < len(lines)*(p+1)/parts; i++ {
+				l := lines[i]
+				out[i] = Line{Hz: l.hz, PPM: l.hz / field, Intensity: l.inten, Group: es.g[l.eg].members[0]}
+			}
+		})
+	} else {
+		out = make([]Line, 0, len(lines))
+		for _, l := range lines {
+			eg := es.g[l.eg]
+			for _, m := range eg.members {
+				f := float64(sys.Groups[m].Count) / float64(eg.n)
+				out = append(out, Line{Hz: l.hz, PPM: l.hz / field, Intensity: l.inten * f, Group: m})
+			}
 		}
 	}
 	byLine := func(x, y Line) int {
