@@ -151,22 +151,52 @@ func (s *sink) all() []rawLine {
 			ng = max(ng, l.eg+1)
 		}
 	}
-	next := make([]int, ng+1)
-	for _, c := range chunks {
-		for _, l := range c {
-			next[l.eg+1]++
-		}
+	// Stable counting sort by group. The chunks are split into runs of
+	// about equal line counts, one per worker; worker w writes group g's
+	// lines from start[g] plus the counts of g in the runs before it.
+	parts := 1
+	if n >= 1<<15 {
+		parts = min(runtime.GOMAXPROCS(0), len(chunks))
 	}
-	for g := 1; g <= ng; g++ {
-		next[g] += next[g-1]
+	cut := make([]int, parts+1) // worker w takes chunks cut[w] … cut[w+1]−1
+	for w, k, seen := 1, 0, 0; w < parts; w++ {
+		for k < len(chunks) && seen < n*w/parts {
+			seen += len(chunks[k])
+			k++
+		}
+		cut[w] = k
+	}
+	cut[parts] = len(chunks)
+	count := make([][]int, parts)
+	parallel(parts, func(w int) {
+		count[w] = make([]int, ng)
+		for _, c := range chunks[cut[w]:cut[w+1]] {
+			for _, l := range c {
+				count[w][l.eg]++
+			}
+		}
+	})
+	next := make([][]int, parts)
+	pos := 0
+	for w := range next {
+		next[w] = make([]int, ng)
+	}
+	for g := 0; g < ng; g++ {
+		for w := 0; w < parts; w++ {
+			next[w][g] = pos
+			pos += count[w][g]
+		}
 	}
 	out := getLines(n)
-	for _, c := range chunks {
-		for _, l := range c {
-			out[next[l.eg]] = l
-			next[l.eg]++
+	parallel(parts, func(w int) {
+		nx := next[w]
+		for _, c := range chunks[cut[w]:cut[w+1]] {
+			for _, l := range c {
+				out[nx[l.eg]] = l
+				nx[l.eg]++
+			}
 		}
-	}
+	})
 	for _, c := range s.chunks {
 		putLines(c)
 	}

@@ -460,16 +460,17 @@ func mergeRaw(lines []rawLine) []rawLine {
 			q.inten += l.inten
 			continue
 		}
+		// A new run: the finished one is dropped if it came to nothing.
+		if n := len(out); n > 0 && math.Abs(out[n-1].inten) <= minIntensity {
+			out = out[:n-1]
+		}
 		start = l.hz
 		out = append(out, l)
 	}
-	kept := out[:0]
-	for _, l := range out {
-		if math.Abs(l.inten) > minIntensity {
-			kept = append(kept, l)
-		}
+	if n := len(out); n > 0 && math.Abs(out[n-1].inten) <= minIntensity {
+		out = out[:n-1]
 	}
-	return kept
+	return out
 }
 
 // sortRaw sorts lines by group, then frequency, stably: a counting sort by
