@@ -238,7 +238,14 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 		parts[blk] = sink{scale: dst.scale, eg: dst.eg}
 		b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
 	}
-	if err := schedule(use, runtime.GOMAXPROCS(0), diag, pair, func(blk int) error { return errs[blk] }, func(blk int) {
+	cost := func(blk int) float64 {
+		d := float64(len(b.blocks[blk]))
+		if sym && nb%2 == 1 && blk == nb/2 {
+			return d * d * d / 4 // two halves
+		}
+		return d * d * d
+	}
+	if err := schedule(use, runtime.GOMAXPROCS(0), cost, diag, pair, func(blk int) error { return errs[blk] }, func(blk int) {
 		if eig[blk].vecs != nil {
 			putFloats(eig[blk].vecs.RawMatrix().Data)
 		}
@@ -272,17 +279,38 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 // which may start only while fewer than workers+2 blocks are held (a block
 // is released, by release(b), once the pairs on both sides are done), so
 // memory stays bounded while a large block is diagonalised alongside
-// smaller ones. After a diagonalisation failed (failed(b) != nil) no new
-// work starts, and the errors are returned.
-func schedule(n, workers int, diag, pair func(int), failed func(int) error, release func(int)) error {
+// smaller ones. Diagonalisations start with the costliest block (cost(b))
+// and grow a contiguous range from it, taking the costlier neighbour first,
+// so the longest task starts at once and every new block has a started
+// neighbour to pair with. After a diagonalisation failed (failed(b) != nil)
+// no new work starts, and the errors are returned.
+func schedule(n, workers int, cost func(int) float64, diag, pair func(int), failed func(int) error, release func(int)) error {
 	if n == 0 {
 		return nil
+	}
+	order := make([]int, 0, n)
+	lo := 0
+	for b := 1; b < n; b++ {
+		if cost(b) > cost(lo) {
+			lo = b
+		}
+	}
+	hi := lo
+	order = append(order, lo)
+	for lo > 0 || hi < n-1 {
+		if hi == n-1 || (lo > 0 && cost(lo-1) >= cost(hi+1)) {
+			lo--
+			order = append(order, lo)
+		} else {
+			hi++
+			order = append(order, hi)
+		}
 	}
 	var mu sync.Mutex
 	cond := sync.NewCond(&mu)
 	diagDone := make([]bool, n)
 	pairState := make([]int8, max(n-1, 0)) // 0 waiting, 1 running, 2 done
-	nextDiag, held, lowPair, running := 0, 0, 0, 0
+	nextDiag, held, running := 0, 0, 0
 	var errs []error
 	// next returns the task to run (isPair, index) or ok=false when
 	// nothing is left; it waits while nothing is ready. mu is held.
@@ -291,21 +319,20 @@ func schedule(n, workers int, diag, pair func(int), failed func(int) error, rele
 			if errs != nil {
 				return false, 0, false
 			}
-			for lowPair < n-1 && pairState[lowPair] == 2 {
-				lowPair++
-			}
-			for p := lowPair; p < n-1 && p+1 < nextDiag; p++ {
+			pending := false
+			for p := 0; p < n-1; p++ {
 				if pairState[p] == 0 && diagDone[p] && diagDone[p+1] {
 					pairState[p] = 1
 					return true, p, true
 				}
+				pending = pending || pairState[p] != 2
 			}
 			if nextDiag < n && held < workers+2 {
 				nextDiag++
 				held++
-				return false, nextDiag - 1, true
+				return false, order[nextDiag-1], true
 			}
-			if lowPair >= n-1 && nextDiag >= n {
+			if !pending && nextDiag >= n {
 				return false, 0, false
 			}
 			if running == 0 { // nothing running and nothing ready: a bug

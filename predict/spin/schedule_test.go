@@ -23,6 +23,7 @@ func TestSchedule(t *testing.T) {
 			relN := make([]int, n)
 			held, maxHeld := 0, 0
 			nap := func() { time.Sleep(time.Duration(rand.IntN(200)) * time.Microsecond) }
+			r := rand.New(rand.NewPCG(uint64(n), uint64(workers)))
 			diag := func(b int) {
 				mu.Lock()
 				diagN[b]++
@@ -49,7 +50,11 @@ func TestSchedule(t *testing.T) {
 				held--
 				mu.Unlock()
 			}
-			if err := schedule(n, workers, diag, pair, func(int) error { return nil }, release); err != nil {
+			costs := make([]float64, n)
+			for b := range costs {
+				costs[b] = r.Float64()
+			}
+			if err := schedule(n, workers, func(b int) float64 { return costs[b] }, diag, pair, func(int) error { return nil }, release); err != nil {
 				t.Fatalf("n=%d w=%d: %v", n, workers, err)
 			}
 			for b := 0; b < n; b++ {
@@ -63,7 +68,7 @@ func TestSchedule(t *testing.T) {
 		}
 	}
 	boom := errors.New("boom")
-	err := schedule(6, 2, func(int) {}, func(int) {}, func(b int) error {
+	err := schedule(6, 2, func(b int) float64 { return float64(b) }, func(int) {}, func(int) {}, func(b int) error {
 		if b == 3 {
 			return boom
 		}
