@@ -77,13 +77,15 @@
 // DefaultFragmentSpins). Composite particles make clusters of CH3 and CH2
 // groups much cheaper than their number of nuclei suggests.
 //
-// Blocks are diagonalised on GOMAXPROCS goroutines, and the lines between
-// adjacent blocks computed as soon as both are known (schedule in
-// hamiltonian.go); a block's eigenvectors are dropped once the lines on both
-// its sides are done, and no new block is started while GOMAXPROCS+2 are
-// held (for 12 spins on two cores, four matrices of at most 924² values,
-// about 27 MB). Large eigenproblems also share their rotation work among the
-// goroutines. The line list
+// Blocks are diagonalised on GOMAXPROCS goroutines, the costliest first,
+// and the lines between adjacent blocks computed as soon as both are known
+// (schedule in hamiltonian.go); a block's eigenvectors are dropped once the
+// lines on both its sides are done, and no new block is started while
+// GOMAXPROCS+2 are held (for 12 spins on two cores, four matrices of at
+// most 924² values, about 27 MB). Large eigenproblems also share their
+// rotation work among the goroutines. Large matrices and line slices are
+// reused through buffer pools (pool.go) rather than left to the garbage
+// collector. The line list
 // itself, tens to hundreds of thousands of lines for 10–12 strongly coupled
 // spins, is usually the larger part of the memory.
 //
