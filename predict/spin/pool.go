@@ -14,7 +14,14 @@ import (
 // one of length n with undefined contents, put hands it back, and the
 // caller must not use it afterwards.
 
-const minPooled = 1 << 10 // smaller buffers are left to the heap
+// Buffers of fewer than minPooled or more than maxPooled elements are left
+// to the heap: small ones are cheap, and rounding a huge one (a 16-spin
+// block's 12,870² matrix) up to a power of two would waste up to half of
+// it.
+const (
+	minPooled = 1 << 10
+	maxPooled = 1 << 24 // 128 MB of float64
+)
 
 var (
 	floatPools [64]sync.Pool
@@ -22,7 +29,7 @@ var (
 )
 
 func getFloats(n int) []float64 {
-	if n < minPooled {
+	if n < minPooled || n > maxPooled {
 		return make([]float64, n)
 	}
 	c := bits.Len(uint(n - 1))
@@ -34,7 +41,7 @@ func getFloats(n int) []float64 {
 
 func putFloats(s []float64) {
 	c := cap(s)
-	if c < minPooled || c&(c-1) != 0 {
+	if c < minPooled || c > maxPooled || c&(c-1) != 0 {
 		return
 	}
 	s = s[:0]
@@ -42,7 +49,7 @@ func putFloats(s []float64) {
 }
 
 func getLines(n int) []rawLine {
-	if n < minPooled {
+	if n < minPooled || n > maxPooled {
 		return make([]rawLine, n)
 	}
 	c := bits.Len(uint(n - 1))
@@ -54,7 +61,7 @@ func getLines(n int) []rawLine {
 
 func putLines(s []rawLine) {
 	c := cap(s)
-	if c < minPooled || c&(c-1) != 0 {
+	if c < minPooled || c > maxPooled || c&(c-1) != 0 {
 		return
 	}
 	s = s[:0]
