@@ -23,47 +23,35 @@ const (
 	maxPooled = 1 << 24 // 128 MB of float64
 )
 
+// bufPool hands out slices of T by power-of-two capacity class.
+type bufPool[T any] struct{ classes [64]sync.Pool }
+
+func (p *bufPool[T]) get(n int) []T {
+	if n < minPooled || n > maxPooled {
+		return make([]T, n)
+	}
+	c := bits.Len(uint(n - 1))
+	if s, ok := p.classes[c].Get().(*[]T); ok {
+		return (*s)[:n]
+	}
+	return make([]T, n, 1<<c)
+}
+
+func (p *bufPool[T]) put(s []T) {
+	c := cap(s)
+	if c < minPooled || c > maxPooled || c&(c-1) != 0 {
+		return
+	}
+	s = s[:0]
+	p.classes[bits.Len(uint(c-1))].Put(&s)
+}
+
 var (
-	floatPools [64]sync.Pool
-	linePools  [64]sync.Pool
+	floatPool bufPool[float64]
+	linePool  bufPool[rawLine]
 )
 
-func getFloats(n int) []float64 {
-	if n < minPooled || n > maxPooled {
-		return make([]float64, n)
-	}
-	c := bits.Len(uint(n - 1))
-	if p, ok := floatPools[c].Get().(*[]float64); ok {
-		return (*p)[:n]
-	}
-	return make([]float64, n, 1<<c)
-}
-
-func putFloats(s []float64) {
-	c := cap(s)
-	if c < minPooled || c > maxPooled || c&(c-1) != 0 {
-		return
-	}
-	s = s[:0]
-	floatPools[bits.Len(uint(c-1))].Put(&s)
-}
-
-func getLines(n int) []rawLine {
-	if n < minPooled || n > maxPooled {
-		return make([]rawLine, n)
-	}
-	c := bits.Len(uint(n - 1))
-	if p, ok := linePools[c].Get().(*[]rawLine); ok {
-		return (*p)[:n]
-	}
-	return make([]rawLine, n, 1<<c)
-}
-
-func putLines(s []rawLine) {
-	c := cap(s)
-	if c < minPooled || c > maxPooled || c&(c-1) != 0 {
-		return
-	}
-	s = s[:0]
-	linePools[bits.Len(uint(c-1))].Put(&s)
-}
+func getFloats(n int) []float64 { return floatPool.get(n) }
+func putFloats(s []float64)     { floatPool.put(s) }
+func getLines(n int) []rawLine  { return linePool.get(n) }
+func putLines(s []rawLine)      { linePool.put(s) }
