@@ -1,6 +1,7 @@
 package spin
 
 import (
+	"errors"
 	"math"
 	"strings"
 )
@@ -139,22 +140,35 @@ func (es *esys) fragmentLines(c []int, opt Options) ([]rawLine, float64, error) 
 	fs := fragSpins(opt)
 	fopt := opt
 	fopt.MaxSpins = fs
-	var out []rawLine
-	dropped := 0.0
-	for _, g := range c {
-		f := es.fragment(g, c, fs)
-		lines, _, err := es.simulateGroups(f, fopt, g)
+	// Fragments are independent: they run on up to GOMAXPROCS goroutines,
+	// each writing its own slot, and are joined in order.
+	own := make([][]rawLine, len(c))
+	drop := make([]float64, len(c))
+	errs := make([]error, len(c))
+	parallel(len(c), func(i int) {
+		g := c[i]
+		lines, _, err := es.simulateGroups(es.fragment(g, c, fs), fopt, g)
 		if err != nil {
-			return nil, 0, err
+			errs[i] = err
+			return
 		}
 		kept := 0.0
 		for _, l := range lines {
 			if l.eg == g {
-				out = append(out, l)
+				own[i] = append(own[i], l)
 				kept += l.inten
 			}
 		}
-		dropped += float64(es.g[g].n) - kept
+		drop[i] = float64(es.g[g].n) - kept
+	})
+	if err := errors.Join(errs...); err != nil {
+		return nil, 0, err
+	}
+	var out []rawLine
+	dropped := 0.0
+	for i := range c {
+		out = append(out, own[i]...)
+		dropped += drop[i]
 	}
 	sortRaw(out) // groups differ between fragments: nothing to merge
 	return out, dropped, nil
