@@ -1,9 +1,10 @@
 package predict
 
 import (
+	"cmp"
 	"fmt"
 	"math"
-	"sort"
+	"slices"
 	"strings"
 
 	"shiftwise/predict/spin"
@@ -134,23 +135,24 @@ func (s *system) exactLines(opt Options) ([]Line, []string, error) {
 		}
 		sum[key{env, int64(math.Round(l.Hz * 1e3))}] += l.Intensity
 	}
-	out := make([]Line, 0, len(sum))
+	// Sorted by signal (in environment order) and frequency; the keys are
+	// integers, so the order does not depend on the map's.
+	keys := make([]key, 0, len(sum))
 	for k, in := range sum {
-		if math.Abs(in) < 1e-6 {
-			continue
+		if math.Abs(in) >= 1e-6 {
+			keys = append(keys, k)
 		}
-		out = append(out, Line{PPM: round(float64(k.mHz)/1e3/opt.FieldMHz, 1e-5), Intensity: round(in, 1e-6), Signal: s.envs[k.env].env.Label})
 	}
-	order := map[string]int{}
-	for i := range s.envs {
-		order[s.envs[i].env.Label] = i
-	}
-	sort.Slice(out, func(a, b int) bool {
-		if out[a].Signal != out[b].Signal {
-			return order[out[a].Signal] < order[out[b].Signal]
+	slices.SortFunc(keys, func(a, b key) int {
+		if c := cmp.Compare(a.env, b.env); c != 0 {
+			return c
 		}
-		return out[a].PPM < out[b].PPM
+		return cmp.Compare(a.mHz, b.mHz)
 	})
+	out := make([]Line, len(keys))
+	for i, k := range keys {
+		out[i] = Line{PPM: round(float64(k.mHz)/1e3/opt.FieldMHz, 1e-5), Intensity: round(sum[k], 1e-6), Signal: s.envs[k.env].env.Label}
+	}
 	return out, modes, nil
 }
 
