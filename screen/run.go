@@ -48,6 +48,8 @@ type Options struct {
 	Progress func(done, total int, row Row)
 	// Check replaces compare.Check (tests, benchmarks).
 	Check func(compare.Input, compare.Options) (*compare.Result, error)
+
+	preds *compare.SharedPredictions // set by Run
 	Now   func() time.Time
 }
 
@@ -65,6 +67,8 @@ func Run(m *Manifest, opt Options) (*Summary, error) {
 	if opt.Now == nil {
 		opt.Now = time.Now
 	}
+	// Samples of one product share its prediction.
+	opt.preds = &compare.SharedPredictions{}
 	if opt.OutDir != "" {
 		if err := os.MkdirAll(opt.OutDir, 0o755); err != nil {
 			return nil, err
@@ -138,6 +142,9 @@ func runOne(m *Manifest, i int, invalid error, file string, opt Options) (row Ro
 		return row
 	}
 	in, copt := m.input(i)
+	if opt.preds != nil {
+		copt.Predictor = opt.preds.Predictor(copt)
+	}
 	res, err := opt.Check(in, copt)
 	if err != nil {
 		// The check's error names the spectrum file or the option; say
