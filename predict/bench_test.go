@@ -1,6 +1,7 @@
 package predict
 
 import (
+	"fmt"
 	"syscall"
 	"testing"
 	"time"
@@ -63,4 +64,25 @@ func BenchmarkPredict30(b *testing.B) {
 func BenchmarkPredict40(b *testing.B) {
 	b.Run("auto", func(b *testing.B) { benchPredict(b, lapatinib, 40, spin.Auto) })
 	b.Run("first-order", func(b *testing.B) { benchPredict(b, lapatinib, 40, spin.FirstOrder) })
+}
+
+// BenchmarkPredictAlkyl predicts methyl stearate (21 heavy atoms) in auto
+// mode at 400 and 60 MHz: its CH2 groups form one strongly coupled
+// cluster, simulated by fragments.
+func BenchmarkPredictAlkyl(b *testing.B) {
+	const smi = "CCCCCCCCCCCCCCCCCC(=O)OC"
+	for _, field := range []float64{400, 60} {
+		b.Run(fmt.Sprintf("%gMHz", field), func(b *testing.B) {
+			m, err := smiles.Parse(smi)
+			if err != nil {
+				b.Fatal(err)
+			}
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := Predict(m, smi, Options{FieldMHz: field}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
 }
