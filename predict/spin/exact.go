@@ -146,7 +146,9 @@ func (es *esys) exactCost(c []int, maxSpins int) (float64, error) {
 // exactLines simulates cluster c exactly, treating the partners xs in the X
 // approximation (one sub-spectrum per spin configuration of the partners).
 // It also returns the intensity of the transitions too weak to report.
-func (es *esys) exactLines(c []int, xs []int) ([]rawLine, float64, error) {
+// weighted chooses the non-negative attribution of transitions to groups
+// (sink.weighted).
+func (es *esys) exactLines(c []int, xs []int, weighted bool) ([]rawLine, float64, error) {
 	ns := make([]int, len(c))
 	nuclei := 0
 	for i, g := range c {
@@ -161,7 +163,7 @@ func (es *esys) exactLines(c []int, xs []int) ([]rawLine, float64, error) {
 		}
 	}
 	norm := math.Pow(2, float64(nuclei-1)) // Tr(F+_g F−_g) = n_g·2^(N−1)
-	dst := &sink{eg: c}
+	dst := &sink{eg: c, weighted: weighted}
 	err := configs(es, xs, func(m []float64, w float64) error {
 		nu := make([]float64, len(c))
 		for i, g := range c {

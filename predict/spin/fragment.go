@@ -26,9 +26,10 @@ import (
 // the work of 9 distinct spin-1/2 nuclei (largest Mz block 126 states).
 // Measured against exact simulation (rendered with 1 Hz lines, largest
 // difference relative to the tallest point): the 14-spin chain of
-// BenchmarkCluster14 0.7% (8 spins: 1.3%); heptanal at 60 MHz, whose
-// nearly coincident CH2 groups need the whole core in one fragment, 4.1%
-// (8 spins: 48%, hardly better than first-order's 65%).
+// BenchmarkCluster14 0.72% (8 spins: 0.93%); heptanal at 60 MHz, whose
+// nearly coincident CH2 groups need the whole core in one fragment, 5.8%
+// (with 8 spins and the signed shares used before: 48%, hardly better
+// than first-order's 65%).
 const DefaultFragmentSpins = 9
 
 // MaxFragmentGroups bounds the clusters simulated by fragments (one
@@ -40,9 +41,9 @@ const MaxFragmentGroups = 32
 // fragmentConfigs bounds the X-approximation configurations of a fragment:
 // 1, i.e. partners outside the fragment only split its lines first-order.
 // Measured (TestFragmentApproachesExact's measure, heptanal at 60 MHz,
-// fragments of 9): 4.1% from exact in 44 ms, against 1.3% in 175 ms with
-// up to 16 configurations as for whole clusters; the 14-spin chain is not
-// affected (0.7%). Many configurations of strongly coupled partners also
+// fragments of 9, with the signed shares used then): 4.1% from exact in
+// 44 ms, against 1.3% in 175 ms with up to 16 configurations as for whole
+// clusters; the 14-spin chain was not affected (0.7%). Many configurations of strongly coupled partners also
 // break the near-equivalence of long CH2 runs into tens of thousands of
 // lines (decane at 400 MHz: 43,536 lines and 0.2 s; now 10 lines, 35 ms).
 const fragmentConfigs = 1
@@ -132,10 +133,15 @@ func (es *esys) fragment(g int, c []int, maxSpins int) []int {
 	}
 }
 
-// fragmentLines simulates cluster c by fragments (see above). The dropped
-// intensity of group g is its Count minus the intensity of its kept lines
-// (the transitions too weak to list, and the shares of other groups'
-// transitions that minShare folding gave to them).
+// fragmentLines simulates cluster c by fragments (see above). Within a
+// fragment each transition is attributed to the groups in proportion to
+// |A_g|² (sink.weighted), not as the signed shares A_g·A of exact mode: a
+// negative share is cancelled by another group's share of the same
+// transition, but that group's lines come from its own fragment, at a
+// slightly different frequency, so signed shares would leave negative
+// lines. The centre's lines are then scaled to sum to its count (the
+// weights make its total differ by a few per cent, and the transitions
+// too weak to list are spread over the others): Dropped is 0.
 func (es *esys) fragmentLines(c []int, opt Options) ([]rawLine, float64, error) {
 	fs := fragSpins(opt)
 	fopt := opt
@@ -143,7 +149,6 @@ func (es *esys) fragmentLines(c []int, opt Options) ([]rawLine, float64, error) 
 	// Fragments are independent: they run on up to GOMAXPROCS goroutines,
 	// each writing its own slot, and are joined in order.
 	own := make([][]rawLine, len(c))
-	drop := make([]float64, len(c))
 	errs := make([]error, len(c))
 	parallel(len(c), func(i int) {
 		g := c[i]
@@ -159,17 +164,21 @@ func (es *esys) fragmentLines(c []int, opt Options) ([]rawLine, float64, error) 
 				kept += l.inten
 			}
 		}
-		drop[i] = float64(es.g[g].n) - kept
+		// Scale to the group's count (see fragmentLines).
+		if kept > 0 {
+			f := float64(es.g[g].n) / kept
+			for k := range own[i] {
+				own[i][k].inten *= f
+			}
+		}
 	})
 	if err := errors.Join(errs...); err != nil {
 		return nil, 0, err
 	}
 	var out []rawLine
-	dropped := 0.0
 	for i := range c {
 		out = append(out, own[i]...)
-		dropped += drop[i]
 	}
 	sortRaw(out) // groups differ between fragments: nothing to merge
-	return out, dropped, nil
+	return out, 0, nil
 }

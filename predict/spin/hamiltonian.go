@@ -133,6 +133,9 @@ type sink struct {
 	scale   float64
 	eg      []int
 	dropped float64 // intensity of transitions weaker than MinLine
+	// weighted attributes each transition |A|² to the groups in proportion
+	// to |A_g|² instead of sharing it as A_g·A (see fragment.go).
+	weighted bool
 }
 
 // all returns the lines of all chunks and of out in one slice, ordered by
@@ -235,7 +238,7 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 		}
 	}
 	pair := func(blk int) {
-		parts[blk] = sink{scale: dst.scale, eg: dst.eg}
+		parts[blk] = sink{scale: dst.scale, eg: dst.eg, weighted: dst.weighted}
 		b.lines(blk, eig[blk], eig[blk+1], &parts[blk])
 	}
 	cost := func(blk int) float64 {
@@ -260,7 +263,7 @@ func transitions(spins []cspin, jm [][]float64, dst *sink) error {
 		}
 		for blk := 0; blk < nb-2-blk; blk++ {
 			m := &parts[nb-2-blk]
-			*m = sink{scale: dst.scale, eg: dst.eg}
+			*m = sink{scale: dst.scale, eg: dst.eg, weighted: dst.weighted}
 			mirrorLines(m, &parts[blk], nu0, egMap)
 		}
 	}
@@ -466,6 +469,21 @@ func (b *basis) lines(blk int, e0, e1 eigen, dst *sink) {
 	grps := b.groups()
 	shares := b.shares(blk, e0, e1, grps, sig, w, a)
 	g := len(grps)
+	if dst.weighted && g > 1 {
+		// A_g = share/A; the weights A_g²/Σ A_h² are not negative and sum
+		// to 1, so each transition keeps its intensity A².
+		for t, tr := range sig {
+			sh := shares[t*g : (t+1)*g]
+			norm := 0.0
+			for k, c := range sh {
+				sh[k] = c / tr.a
+				norm += sh[k] * sh[k]
+			}
+			for k, c := range sh {
+				sh[k] = tr.a * tr.a * c * c / norm
+			}
+		}
+	}
 	// Fold shares below minShare of the line into its largest share, and
 	// count the lines to allocate them at once.
 	nout := 0

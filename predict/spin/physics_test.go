@@ -30,7 +30,7 @@ func productBasis(t *testing.T, sys System, field float64) []peak {
 	for _, c := range sys.Couplings {
 		es.j[c.A][c.B], es.j[c.B][c.A] = c.JHz, c.JHz
 	}
-	raw, _, err := es.exactLines(all, nil)
+	raw, _, err := es.exactLines(all, nil, false)
 	if err != nil {
 		t.Fatal(err)
 	}

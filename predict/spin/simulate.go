@@ -369,6 +369,8 @@ func (es *esys) simulateCluster(c []int, opt Options) ([]rawLine, float64, error
 
 // simulateGroups is simulateCluster keeping only the lines of group keep
 // (all groups when keep < 0) before the first-order splitting by partners.
+// With keep ≥ 0 (a fragment) transitions are attributed to groups by
+// weight (sink.weighted), so that the kept lines are not negative.
 func (es *esys) simulateGroups(c []int, opt Options, keep int) ([]rawLine, float64, error) {
 	ps := es.partners(c)
 	if len(c) == 1 && opt.Mode != Exact {
@@ -397,7 +399,7 @@ func (es *esys) simulateGroups(c []int, opt Options, keep int) ([]rawLine, float
 		}
 		nconf = next
 	}
-	lines, dropped, err := es.exactLines(c, ps[:k])
+	lines, dropped, err := es.exactLines(c, ps[:k], keep >= 0)
 	if err != nil {
 		return nil, 0, err
 	}
