@@ -70,11 +70,17 @@ func (es *esys) firstOrderLines(c []int) ([]rawLine, float64, error) {
 	return out, 0, nil
 }
 
-// names lists the names of the groups of c for messages.
+// names lists the names of the member groups of c for notes, each once.
 func (es *esys) names(c []int) string {
-	s := make([]string, len(c))
-	for i, g := range c {
-		s[i] = es.g[g].name
+	var s []string
+	seen := map[string]bool{}
+	for _, g := range c {
+		for _, n := range es.g[g].names {
+			if !seen[n] {
+				seen[n] = true
+				s = append(s, n)
+			}
+		}
 	}
 	if len(s) > 12 {
 		s = append(s[:12], "…")

@@ -153,12 +153,17 @@ func TestFragment14Accuracy(t *testing.T) {
 // its two partners (J = 7 and 1.5 Hz; Pascal's triangle).
 func TestFragmentNotesAndLimit(t *testing.T) {
 	t.Parallel()
-	res, err := Simulate(chain(14, 0.05), Options{FieldMHz: 400})
+	// Group "x" is magnetically equivalent to the end group "a" (same shift,
+	// same couplings) and merged with it; the note names it too.
+	sys := chain(14, 0.05)
+	sys.Groups = append(sys.Groups, Group{Name: "x", ShiftPPM: sys.Groups[0].ShiftPPM, Count: 1})
+	sys.Couplings = append(sys.Couplings, Coupling{14, 1, 7}, Coupling{14, 2, 1.5})
+	res, err := Simulate(sys, Options{FieldMHz: 400})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(res.Notes) != 1 || !strings.Contains(res.Notes[0], "fragments") {
-		t.Errorf("14 spins: notes %q, want one about fragments", res.Notes)
+	if len(res.Notes) != 1 || !strings.Contains(res.Notes[0], "fragments") || !strings.Contains(res.Notes[0], "a, x, b") {
+		t.Errorf("14 spins: notes %q, want one about fragments naming a, x, b, …", res.Notes)
 	}
 	res, err = Simulate(chain(40, 0.01), Options{FieldMHz: 400})
 	if err != nil {

@@ -167,8 +167,9 @@ type egroup struct {
 	nu      float64 // Hz
 	n       int     // number of spin-1/2 nuclei
 	proton  bool
-	members []int  // indices into System.Groups
-	name    string // of the first member, for messages
+	members []int    // indices into System.Groups
+	name    string   // of the first member, for messages
+	names   []string // of all members, for notes
 }
 
 // esys is the reduced system: merged groups and a dense coupling matrix.
@@ -218,12 +219,13 @@ func reduce(sys System, field float64) *esys {
 		}
 		rep[a] = len(es.g)
 		ga := sys.Groups[a]
-		eg := egroup{nu: ga.ShiftPPM * field, n: ga.Count, proton: ga.IsProton(), members: []int{a}, name: ga.Name}
+		eg := egroup{nu: ga.ShiftPPM * field, n: ga.Count, proton: ga.IsProton(), members: []int{a}, name: ga.Name, names: []string{ga.Name}}
 		for b := a + 1; b < n; b++ {
 			if rep[b] < 0 && equivalent(sys.Groups, nz, a, b) {
 				rep[b] = rep[a]
 				eg.n += sys.Groups[b].Count
 				eg.members = append(eg.members, b)
+				eg.names = append(eg.names, sys.Groups[b].Name)
 			}
 		}
 		es.g = append(es.g, eg)
