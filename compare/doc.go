@@ -155,6 +155,13 @@
 // (second-order) patterns below 400 MHz, exchangeables not seen, and the
 // integral assumptions.
 //
+// Known limit: homologs are not told apart. The integral scale is fitted
+// to all assigned multiplets, so a long alkyl envelope with a few CH2 more
+// or fewer than expected shifts the scale instead of failing the check
+// (synthetic methyl stearate checked as methyl laurate passes at 60 MHz).
+// One multiplet may take up to 32 signals, as many as its integral allows
+// (an envelope of a long chain holds a dozen or more).
+//
 // # Purity
 //
 // The molar composition counts the compound and the identified impurities

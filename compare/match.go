@@ -36,6 +36,11 @@ const (
 	// sample still collapses it; common practice, no source).
 	missCostCoupled = 6
 	shareCost       = 1.5 // one more signal placed in an already used multiplet
+	// maxShared bounds the signals one multiplet can take: an aliphatic
+	// envelope of a long chain holds a dozen or more CH2 signals (methyl
+	// stearate: 14 in a 28 H hump), so the bound is set by the
+	// multiplet's integral, up to this many.
+	maxShared       = 32
 	multWeight      = 1.5 // weight of the multiplicity term
 	overWeight      = 4.0 // signal larger than the multiplet (log-ratio²)
 	underWeight     = 1.5 // multiplet larger than the signal (log-ratio²)
@@ -263,7 +268,7 @@ func assignSignals(sig []predict.Signal, ms []mplet, avail []bool, penalty []flo
 		if hPerArea > 0 {
 			copies = int(m.area*hPerArea + 0.5)
 		}
-		copies = max(1, min(copies, n, 8))
+		copies = max(1, min(copies, n, maxShared))
 		for k := 0; k < copies; k++ {
 			cols = append(cols, col{j, k})
 		}
