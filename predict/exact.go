@@ -82,8 +82,7 @@ func (s *system) groupJ(ss spinSystem, a, b, nH int) float64 {
 // Bounds on coupled clusters. In Auto mode a strongly coupled cluster whose
 // exact simulation costs more than that of autoMaxSpins distinct protons
 // (largest block 126 states: a few ms) is simulated by fragments of the
-// same size (spin.Options.FragmentSpins; heptanal at 60 MHz about 0.2 s),
-// and its signals' mode is "fragment"; in Exact mode a cluster of more
+// same size (spin.Options.FragmentSpins), and its signals' mode is "fragment"; in Exact mode a cluster of more
 // than exactMaxNuclei protons is refused. Exact cost grows about eightfold
 // per added spin: 10 distinct protons take tens of ms (see BENCHMARKS.md,
 // spin Cluster10).

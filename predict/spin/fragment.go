@@ -56,12 +56,13 @@ func fragSpins(opt Options) int {
 	return opt.FragmentSpins
 }
 
-// firstOrderLines splits each group of c first-order by all its partners.
-func (es *esys) firstOrderLines(c []int) ([]rawLine, float64, error) {
+// firstOrderLines splits each group of c first-order by all its partners
+// (simulateCluster's path for a single group, in Auto mode).
+func (es *esys) firstOrderLines(c []int, opt Options) ([]rawLine, float64, error) {
+	opt.Mode = Auto
 	var out []rawLine
 	for _, g := range c {
-		lines := []rawLine{{hz: es.g[g].nu, inten: float64(es.g[g].n), eg: g}}
-		lines, err := es.splitBy(lines, es.partners([]int{g}))
+		lines, _, err := es.simulateCluster([]int{g}, opt)
 		if err != nil {
 			return nil, 0, err
 		}

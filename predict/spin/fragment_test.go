@@ -96,7 +96,9 @@ func TestFragmentApproachesExact(t *testing.T) {
 
 // TestFragmentGrowth: the fragment of a chain's end group takes its
 // neighbours in order along the chain (strongest path first) and stops at
-// the work of the given number of spins.
+// the work of the given number of spins. This checks our own growth rule
+// (fragment.go), not an outside result; its effect on the spectrum is
+// checked against exact simulation above.
 func TestFragmentGrowth(t *testing.T) {
 	t.Parallel()
 	es := reduce(chain(10, 0.05), 400)

@@ -628,8 +628,8 @@ func (b *basis) sharesDirect(blk int, e0, e1 eigen, grps []int, sig []transition
 	defer putFloats(v1t.RawMatrix().Data)
 	g, d0 := len(grps), len(e0.vals)
 	// Transitions are shared among goroutines in runs that start at a new
-	// lower state j, each with its own U; large products only (the other
-	// blocks of the wave may keep the cores busy).
+	// lower state j, each with its own U; large products only (other block
+	// pairs may keep the cores busy).
 	parts := 1
 	if float64(len(sig))*float64(g*d0) > 4e6 {
 		parts = runtime.GOMAXPROCS(0)

@@ -68,7 +68,7 @@ func Simulate(sys System, opt Options) (*Result, error) {
 				res.Notes = append(res.Notes, fmt.Sprintf("groups %s form a strongly coupled cluster too large to simulate exactly; simulated by fragments of up to %d spins (approximate second-order patterns)", es.names(c), fragSpins(opt)))
 			} else {
 				mode = FirstOrder
-				cl, dropped, err = es.firstOrderLines(c)
+				cl, dropped, err = es.firstOrderLines(c, opt)
 				res.Notes = append(res.Notes, fmt.Sprintf("groups %s form a strongly coupled cluster of %d groups, too large to simulate exactly or by fragments (at most %d groups); first-order patterns used", es.names(c), len(c), MaxFragmentGroups))
 			}
 		}
