@@ -4,6 +4,7 @@ import (
 	"math"
 	"sort"
 
+	"shiftwise/predict"
 	"shiftwise/spectrum"
 )
 
@@ -74,18 +75,46 @@ func (ev *evaluation) multipletShape(m mplet, sigs []int, trace *spectrum.Spectr
 	}
 	g := width / 2 / field // half width at half height, ppm
 	n := hi - lo
-	model := make([]float64, n)
+	var ls []predict.Line
 	for _, l := range ev.pred.Lines {
-		if !labels[l.Signal] {
-			continue
+		if labels[l.Signal] {
+			ls = append(ls, l)
 		}
-		x0 := l.PPM + delta
-		for k := 0; k < n; k++ {
-			d := (trace.PPM[lo+k] - x0) / g
-			model[k] += l.Intensity / (1 + d*d)
+	}
+	model := make([]float64, n)
+	if step, ok := uniformStep(trace.PPM[lo:hi]); ok {
+		// Thousands of lines (second-order patterns at low field) are
+		// binned and convolved rather than drawn one by one.
+		predict.AddLorentzians(model, trace.PPM[lo], step, ls, delta, g)
+	} else {
+		for _, l := range ls {
+			x0 := l.PPM + delta
+			for k := 0; k < n; k++ {
+				d := (trace.PPM[lo+k] - x0) / g
+				model[k] += l.Intensity / (1 + d*d)
+			}
 		}
 	}
 	return pearson(model, trace.Y[lo:hi]), true
+}
+
+// uniformStep returns the step of x when its points are equally spaced
+// (within 0.1 % of a step) and ascending.
+func uniformStep(x []float64) (float64, bool) {
+	n := len(x)
+	if n < 2 {
+		return 0, false
+	}
+	step := (x[n-1] - x[0]) / float64(n-1)
+	if !(step > 0) {
+		return 0, false
+	}
+	for k, v := range x {
+		if math.Abs(v-(x[0]+float64(k)*step)) > 1e-3*step {
+			return 0, false
+		}
+	}
+	return step, true
 }
 
 // pearson is the correlation coefficient of a and b (0 when either is flat).

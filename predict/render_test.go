@@ -3,6 +3,7 @@ package predict
 import (
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"testing"
 
 	"gonum.org/v1/gonum/floats"
@@ -56,6 +57,78 @@ func TestRenderBroadExchangeable(t *testing.T) {
 	}
 	if x, y := Render(p, 0, 6, 1, 1); x != nil || y != nil {
 		t.Error("Render with 1 point should return nil")
+	}
+}
+
+// TestAddLorentziansBinnedMatchesDirect: the binned FFT renderer against
+// the point-by-point sum of the closed-form Lorentzian L(d) = γ/π/(d² + γ²)
+// (textbook) for many random lines, some just outside the grid. Linear
+// binning moves a line's shape by the second-order Taylor term, at most
+// step²/8·|L”|, and |L”(d)| ≤ 2·L(d)/γ² (calculus on the formula above; our
+// derivation, not from a source), so each point may differ by about
+// ¼·(step/γ)²·(the same lines drawn with |intensity|), plus a truncation
+// edge term (one line's tail at 200 γ, peak/40,000) and rounding.
+func TestAddLorentziansBinnedMatchesDirect(t *testing.T) {
+	t.Parallel()
+	rng := rand.New(rand.NewPCG(3, 4))
+	const n, lo = 20000, 0.5
+	for _, c := range []struct{ step, gamma float64 }{{0.0001, 0.0008}, {0.0001, 0.004}, {0.00005, 0.0025}} {
+		lines := make([]Line, 3000)
+		abs := make([]Line, len(lines))
+		for i := range lines {
+			lines[i] = Line{PPM: lo - 0.2 + rng.Float64()*(float64(n)*c.step+0.4), Intensity: rng.Float64() - 0.1}
+			abs[i] = Line{PPM: lines[i].PPM, Intensity: math.Abs(lines[i].Intensity)}
+		}
+		m, k, ok := binnedPlan(n, len(lines), c.step, c.gamma)
+		if !ok {
+			t.Fatalf("step %g, γ %g: binned renderer not chosen for %d lines", c.step, c.gamma, len(lines))
+		}
+		direct := make([]float64, n)
+		binned := make([]float64, n)
+		size := make([]float64, n)
+		addDirect(direct, lo, c.step, lines, 0.01, c.gamma)
+		addBinned(binned, lo, c.step, lines, 0.01, c.gamma, m, k)
+		addDirect(size, lo, c.step, abs, 0.01, c.gamma)
+		peak := 1 / (math.Pi * c.gamma) // unit-area Lorentzian height
+		r2 := (c.step / c.gamma) * (c.step / c.gamma)
+		var worst, used float64
+		for i := range direct {
+			tol := 0.3*r2*size[i] + 1e-4*peak
+			if d := math.Abs(direct[i] - binned[i]); d/tol > used {
+				worst, used = d, d/tol
+			}
+		}
+		if used > 1 {
+			t.Errorf("step %g, γ %g: binned differs from direct by %.3g, %.1f× the bound", c.step, c.gamma, worst, used)
+		}
+	}
+	// A coarse grid is never binned.
+	if _, _, ok := binnedPlan(1000, 1e6, 0.001, 0.004); ok {
+		t.Error("binned renderer chosen for a grid step of γ/4")
+	}
+}
+
+// TestAddLorentziansShape: one line rendered through AddLorentzians (both
+// renderers) peaks at its shifted centre with height I/(πγ) and is half as
+// high one half width away (definition of the Lorentzian's half width).
+func TestAddLorentziansShape(t *testing.T) {
+	t.Parallel()
+	const lo, step, gamma = 0.0, 0.0001, 0.002
+	for _, many := range []int{1, 4000} {
+		lines := make([]Line, many)
+		for i := range lines {
+			lines[i] = Line{PPM: 1.0, Intensity: 2.0 / float64(many)}
+		}
+		y := make([]float64, 20001)
+		AddLorentzians(y, lo, step, lines, 0.25, gamma)
+		top := 2 / (math.Pi * gamma)
+		at := func(ppm float64) float64 { return y[int(math.Round((ppm-lo)/step))] }
+		if v := at(1.25); math.Abs(v-top) > 1e-3*top {
+			t.Errorf("%d lines: height %.6g at the centre, want %.6g", many, v, top)
+		}
+		if v := at(1.25 + gamma); math.Abs(v-top/2) > 1e-3*top {
+			t.Errorf("%d lines: height %.6g one half width out, want %.6g", many, v, top/2)
+		}
 	}
 }
 
