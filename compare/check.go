@@ -226,7 +226,8 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 		scale, spread = s, sp
 	}
 	eff, pre = splitHiddenLines(&p2, sig, eff, pre, sigM, field, solv, solvOK)
-	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff, trace: trace}
+	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff, trace: trace,
+		solv: solv, solvOK: solvOK}
 	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras, compoundWindows(&p2, sig, sigM, eff, field))
 	ev.evaluate(eff, field)
 	return ev

@@ -127,6 +127,20 @@
 //     signals (a proton missing there; a uniform shortfall of every
 //     multiplet is a scale or relaxation effect, and an excess is usually
 //     overlapped water, exchangeable or impurity, listed but not a reason);
+//   - the integrals contradict each other by whole protons
+//     (integralConflicts): the fitted scale is an H-weighted median, so a
+//     long alkyl envelope can set it alone and hide a homolog's extra or
+//     missing CH2 groups. Each multiplet then votes once (weight
+//     min(H, 3)/signals in it: a clean OCH3 counts fully, an envelope
+//     little); when that consensus, backed by two agreeing multiplets of
+//     3 H or more (or, of two multiplets, one clean one of at least 2 H),
+//     differs from the fitted scale by 25 %, the multiplets it
+//     contradicts, summed, short or long by 2 H and 20 %, are named ("on
+//     the scale of the multiplets at 3.67, 2.30, which agree, the
+//     multiplet at 1.34 holds 33.1 H where 21 are expected"). Without such
+//     a conflict, a compound multiplet holding 2 H and 40 % more than its
+//     signals is named unless water, the residual solvent or an identified
+//     species has a line in it;
 //   - unexplained peaks hold more than 10 % of the intensity, or more than
 //     5 % with one unexplained multiplet of at least 0.5 H-equivalents (a
 //     proton-sized signal rather than a scatter of traces); the reason names
@@ -155,12 +169,13 @@
 // (second-order) patterns below 400 MHz, exchangeables not seen, and the
 // integral assumptions.
 //
-// Known limit: homologs are not told apart. The integral scale is fitted
-// to all assigned multiplets, so a long alkyl envelope with a few CH2 more
-// or fewer than expected shifts the scale instead of failing the check
-// (synthetic methyl stearate checked as methyl laurate passes at 60 MHz).
 // One multiplet may take up to 32 signals, as many as its integral allows
-// (an envelope of a long chain holds a dozen or more).
+// (an envelope of a long chain holds a dozen or more). Homologs are told
+// apart by the integral rule above, not by shifts. Known limit: a chain
+// one CH2 longer or shorter adds or removes 2 H, within integral error:
+// methyl stearate checked as methyl heptadecanoate, 1-octanol as
+// 1-heptanol at 60 MHz and 1-hexanol as 1-pentanol pass (synthetic
+// spectra); mass spectrometry settles chain length.
 //
 // # Purity
 //

@@ -12,9 +12,7 @@ import (
 // synthesised from our own prediction with shift jitter (invented data; it
 // checks the matcher's capacity, not the chemistry): the true structure
 // must be consistent at 60 and 400 MHz; it was "inconsistent" while a
-// multiplet could take at most 8 signals. (Homologs are not told apart:
-// checked as methyl laurate, whose envelope holds 16 H, the same spectrum
-// also passes at 60 MHz — see the limits in doc.go.)
+// multiplet could take at most 8 signals. (Homologs: TestHomologsToldApart.)
 func TestLongChainEnvelope(t *testing.T) {
 	const stearate = "CCCCCCCCCCCCCCCCCC(=O)OC"
 	for _, field := range []float64{60, 400} {

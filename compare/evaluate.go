@@ -52,6 +52,8 @@ type evaluation struct {
 	ms      []mplet // the multiplets as this structure sees them (parts absorbed)
 	trace   *spectrum.Spectrum
 	nh      map[string]int
+	solv    SolventInfo // the tube's solvent (solvOK: known)
+	solvOK  bool
 }
 
 // score fills parts, score, verdict and reasons of ev.
@@ -232,6 +234,10 @@ func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
 	rs = append(rs, ev.regionReasons(ms)...)
 	if len(ev.regionsOff(ms)) > 0 {
 		review = true // a region off by a whole proton or more
+	}
+	if c := ev.integralConflicts(ms); len(c) > 0 {
+		rs = append(rs, c...)
+		review = true
 	}
 	if p.Integrals < minIntegralScore {
 		incons = true
