@@ -136,7 +136,10 @@ func conflictReasons(ms []mplet, agreeJ []int, agree map[int]bool, exp, all map[
 			longAll += all[j]
 		}
 	}
-	on := fmt.Sprintf("on the scale of the %s at %s, which agree,", plural(len(agreeJ), "multiplet"), ppmList(ms, agreeJ))
+	on := fmt.Sprintf("on the scale of the multiplet at %s,", ppmList(ms, agreeJ))
+	if len(agreeJ) > 1 {
+		on = fmt.Sprintf("on the scale of the multiplets at %s, which agree,", ppmList(ms, agreeJ))
+	}
 	var out []string
 	if d := shortExp - shortGot; d >= offH && d >= agreeFrac*shortExp {
 		out = append(out, fmt.Sprintf("%s the %s at %s %s %.1f H where %.0f are expected (a shorter chain, or another compound?)",
