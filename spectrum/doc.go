@@ -106,7 +106,12 @@
 //     peak and the tallest peak of the multiplet so far (and 3σ; a weak
 //     broad hump between two multiplets does not chain them),
 //     in both cases only when the new peak and the tallest peak of the
-//     multiplet so far differ by less than a factor of 30. When the solvent
+//     multiplet so far differ by less than a factor of 30. Across a gap
+//     wider than 10 Hz where the trace returns to the baseline (3σ), the
+//     distance joins only peaks within a factor of 3 (the two halves of a
+//     d or dd; Pascal ratios up to 1:7 sit a small J apart): at 60–90 MHz
+//     neighbouring multiplets lie within 20 Hz and would chain into one
+//     region of several ppm. When the solvent
 //     is known, the residual quintet of a CD3 solvent (1:2:3:2:1, J(HD)
 //     about 2 Hz) or the 1:1:1 triplet of CD2Cl2 is found among the lines
 //     grouped with it and given a multiplet of its own (residual.go); a

@@ -10,7 +10,8 @@ import (
 //
 // Each multiplet is integrated with the trapezoid rule over its region on
 // the baseline-corrected trace: from its first to its last line, widened on
-// each side by a margin of integrateMarginWidths line widths (at least
+// each side by a margin of integrateMarginWidths times the width of its
+// widest line (at most marginWidthCap times their median width; at least
 // integrateMarginHz), and never past the midpoint to the neighbouring
 // multiplet. Lorentzian lines have long tails (a line keeps 6 % of its area
 // beyond ±10 half-widths), so the region sum is corrected with the line
@@ -36,6 +37,7 @@ import (
 const (
 	integrateMarginWidths = 5.0 // region margin in line widths (FWHM)
 	integrateMarginHz     = 3.0 // smallest region margin
+	marginWidthCap        = 3.0 // widest line counted for the margin, in median widths
 	wholeTolerance        = 0.12
 	voteTolerance         = 0.15 // per multiplet, see voteUnit
 	maxWholeN             = 4
@@ -61,11 +63,17 @@ func setRegions(gs []group, ls []line, fieldMHz float64) {
 	for k := range gs {
 		g := &gs[k]
 		first, last := ls[g.lines[0]], ls[g.lines[len(g.lines)-1]]
-		wmax := 0.0
+		ws := make([]float64, 0, len(g.lines))
 		for _, i := range g.lines {
-			wmax = math.Max(wmax, ls[i].widthHz)
+			ws = append(ws, ls[i].widthHz)
 		}
-		margin := math.Max(integrateMarginHz, integrateMarginWidths*wmax) / fieldMHz
+		sort.Float64s(ws)
+		// The widest line, but at most marginWidthCap × the median: one
+		// broad fitted line (a shoulder, an unresolved cluster) must not
+		// widen the region by a whole ppm at 60 MHz (5 × 15 Hz); the
+		// tails beyond are corrected below.
+		w := math.Min(ws[len(ws)-1], marginWidthCap*ws[len(ws)/2])
+		margin := math.Max(integrateMarginHz, integrateMarginWidths*w) / fieldMHz
 		g.from, g.to = first.ppm-margin, last.ppm+margin
 		if k > 0 {
 			prev := ls[gs[k-1].lines[len(gs[k-1].lines)-1]].ppm

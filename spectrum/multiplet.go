@@ -20,7 +20,10 @@ import (
 // own low height), with 3σ as a floor — in both cases only when the new peak and the
 // tallest peak of the multiplet so far differ by less than groupMaxRatio
 // (the outer line of a septet is 1/20 of its centre, Pascal's triangle), so
-// that small signals on the foot of a strong line stay separate. Peaks
+// that small signals on the foot of a strong line stay separate. Across a
+// gap wider than baseGapHz where the trace returns to the baseline, the
+// distance joins only peaks within baseGapRatio of each other (at 60–90
+// MHz neighbouring multiplets lie within JMaxHz). Peaks
 // flagged as artifacts (13C satellites, spinning sidebands, line-shape
 // skirts) are left out. A multiplet's centre is the midpoint of a
 // first-order pattern, else the height-weighted mean of its peaks.
@@ -49,6 +52,8 @@ const (
 	maxComponents = 256 // 8 couplings
 	maxLetters    = 4   // "dddd" is the longest name given
 	groupMaxRatio = 30  // largest height ratio of neighbours joined by distance
+	baseGapRatio  = 3   // ... across a wide gap where the trace returns to the baseline
+	baseGapHz     = 10  // a gap wider than this is "wide"
 	trimKeep      = 0.9
 )
 
@@ -94,7 +99,16 @@ func groupLines(ls []line, fieldMHz, jMaxHz, sigma float64, valley func(a, b int
 			gap := (ls[i].ppm - ls[p].ppm) * fieldMHz
 			floor := math.Max(3*sigma, 0.25*math.Min(ls[i].height, gmax))
 			hi, lo := math.Max(ls[i].height, gmax), math.Min(ls[i].height, gmax)
-			join := hi <= groupMaxRatio*lo && (gap <= jMaxHz || valley(p, i) > floor)
+			v := valley(p, i)
+			// A wide gap (over baseGapHz) where the trace returns to the
+			// baseline joins only lines of similar height: across a
+			// large coupling the pattern repeats (d, dd), whereas Pascal
+			// ratios up to 1:7 sit a small J apart. At 60–90 MHz
+			// neighbouring multiplets lie within JMaxHz of each other and
+			// would otherwise chain into one.
+			baseGap := sigma > 0 && v <= 3*sigma && gap > baseGapHz
+			byDist := gap <= jMaxHz && (!baseGap || hi <= baseGapRatio*lo)
+			join := hi <= groupMaxRatio*lo && (byDist || v > floor)
 			if !join {
 				out = append(out, group{lines: cur})
 				cur, gmax = nil, 0
