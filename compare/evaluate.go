@@ -348,12 +348,19 @@ func (ev *evaluation) cautions(field float64) []string {
 		out = append(out, fmt.Sprintf("strongly coupled (second-order) patterns for signals %s at %.0f MHz: multiplicities may not read as first-order",
 			strings.Join(exact, ", "), field))
 	}
+	if field > 0 && field < benchtopMHz {
+		out = append(out, fmt.Sprintf("at %.0f MHz positional isomers (ortho/meta/para, E/Z) often give nearly the same 1H spectrum: confirm the substitution pattern by a higher-field spectrum, 13C NMR or a reference standard", field))
+	}
 	if exchMissing > 0 {
 		out = append(out, fmt.Sprintf("%d exchangeable proton signal(s) (OH, NH, COOH) not observed; this is common and not held against the structure", exchMissing))
 	}
 	out = append(out, "integrals assume full relaxation and a flat baseline")
 	return out
 }
+
+// benchtopMHz: below this field the benchtop caution applies (60–90 MHz
+// instruments; common practice, no source).
+const benchtopMHz = 100
 
 // sharedCleanCost is added to the splitting cost of a signal that shares a
 // clean first-order multiplet with other signals (common practice, no

@@ -12,14 +12,18 @@ import (
 // spectra; common practice, no source for their form.
 const (
 	// agreeFrac: multiplets whose H per unit area lies within this
-	// fraction of the consensus agree with it.
-	agreeFrac = 0.20
+	// fraction of the consensus agree with it (small multiplets at 60 MHz
+	// integrate within about 20 %).
+	agreeFrac = 0.25
+	// misfitFrac: in a conflict, the contradicted multiplets are named when
+	// short or long together by this fraction of their H (and offH).
+	misfitFrac = 0.20
 	// conflictFrac: the H-weighted scale and the consensus of the
 	// multiplets (each one vote) differ by at least this fraction: one
 	// large multiplet sets the scale against the others.
 	conflictFrac = 0.25
 	// offH: the least misfit reported, in H. In a conflict, multiplets
-	// off by offH and agreeFrac of their H together are reported;
+	// off by offH and misfitFrac of their H together are reported;
 	// without one, a multiplet holding offH and excessFrac more H than
 	// its signals.
 	offH       = 2.0
@@ -40,7 +44,7 @@ const (
 // at least two agreeing multiplets of 3 H or more together (or, with only
 // two multiplets, by one clean multiplet of at least 2 H holding one
 // signal), the multiplets it contradicts are summed, short ones and long
-// ones apart: off by offH and agreeFrac of their H together, they are
+// ones apart: off by offH and misfitFrac of their H together, they are
 // named. Without such a conflict, on the fitted scale, a compound
 // multiplet holding offH and excessFrac more H than its signals is named
 // unless water, the residual solvent or an identified species lies in it.
@@ -141,11 +145,11 @@ func conflictReasons(ms []mplet, agreeJ []int, agree map[int]bool, exp, all map[
 		on = fmt.Sprintf("on the scale of the multiplets at %s, which agree,", ppmList(ms, agreeJ))
 	}
 	var out []string
-	if d := shortExp - shortGot; d >= offH && d >= agreeFrac*shortExp {
+	if d := shortExp - shortGot; d >= offH && d >= misfitFrac*shortExp {
 		out = append(out, fmt.Sprintf("%s the %s at %s %s %.1f H where %.0f are expected (a shorter chain, or another compound?)",
 			on, plural(len(shortJ), "multiplet"), ppmList(ms, shortJ), holds(len(shortJ)), shortGot, shortExp))
 	}
-	if d := longGot - longAll; d >= offH && d >= agreeFrac*longAll {
+	if d := longGot - longAll; d >= offH && d >= misfitFrac*longAll {
 		out = append(out, fmt.Sprintf("%s the %s at %s %s %.1f H where %.0f are expected (a longer chain, or water or an impurity under it?)",
 			on, plural(len(longJ), "multiplet"), ppmList(ms, longJ), holds(len(longJ)), longGot, longAll))
 	}
