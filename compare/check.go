@@ -72,7 +72,7 @@ func Check(in Input, opt Options) (*Result, error) {
 	altRes := -1
 	if solvOK && opt.Solvent == "" {
 		// The file's solvent, not the user's: trust the lines over the header.
-		if alt, j, ok := solventFromLines(ms, solv); ok {
+		if alt, j, ok := solventFromLines(ms, solv, field); ok {
 			warn = append(warn, solventWarning(solv, alt))
 			solv, altRes = alt, j
 		}
@@ -98,7 +98,7 @@ func Check(in Input, opt Options) (*Result, error) {
 			return nil, err
 		}
 	}
-	pre := claimFixed(ms, solv, solvOK)
+	pre := claimFixed(ms, solv, solvOK, field)
 	if altRes >= 0 && pre[altRes] == "" {
 		pre[altRes] = "solvent" // the residual line that told the solvent
 	}

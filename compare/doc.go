@@ -60,16 +60,24 @@
 //     satellites (55–110 Hz from a parent at least 20× larger, 0.15–1.5 %
 //     of it) or mirrored spinning sidebands (5–50 Hz, < 3 %), and regions
 //     wider than 1.5 ppm (baseline humps: no real multiplet is that wide),
-//     besides the artifacts processing flags itself; the internal standard and the
-//     --impurity structures (predicted, matched by a small assignment, at
-//     least half their H found; the amount is the H-weighted median of the
+//     besides the artifacts processing flags itself (a satellite without
+//     its mirror line is not accepted at a tabulated contaminant singlet);
+//     the internal standard and the
+//     --impurity structures (predicted, matched by a small assignment
+//     within 2 SD of each predicted shift, never to the water line for a
+//     signal predicted away from it; at least half their H found, or, when
+//     the rest is predicted under compound multiplets, found signals within
+//     1 SD and 0.3 ppm clear of the compound's multiplets (benzaldehyde's
+//     CHO beside an aromatic compound at 60 MHz); the amount is the H-weighted median of the
 //     per-proton amounts of the signals clear of the compound's lines —
 //     predicted lines ± 3 Hz around the predicted shift and around the
 //     assigned multiplet, and that multiplet — or, when all overlap, the
 //     smallest, since an overlapped signal can only gain area); table
 //     species for the solvent
 //     (tables/impurities.toml: Gottlieb, Kotlyar & Nudelman 1997 and
-//     Fulmer et al. 2010, values from memory), whole sets first (a lone line that water
+//     Fulmer et al. 2010, values from memory; a sharp line's region at most
+//     0.15 ppm, or 45 Hz below 300 MHz; ties between neighbouring table
+//     lines go to the closer multiplet centre), whole sets first (a lone line that water
 //     or a one-line contaminant could be is water, the other named as the
 //     alternative), a signal
 //     hidden under a compound multiplet counting towards the set, named

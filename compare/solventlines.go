@@ -11,7 +11,7 @@ import (
 // Tolerances: residual lines sit within ±0.03 ppm of their tabulated shift
 // and water moves by about ±0.1 ppm with concentration and temperature
 // (Gottlieb 1997, Fulmer 2010; values from memory); a residual multiplet is
-// narrow (at most maxSharpWidth).
+// narrow (at most sharpWidth).
 const (
 	residualTol = 0.03
 	waterTol    = 0.10
@@ -24,7 +24,7 @@ const (
 // residual is present, when no other solvent has both lines, or when more
 // than one has (ambiguous). D2O has only one line (HDO) and cannot be told
 // this way.
-func solventFromLines(ms []mplet, declared SolventInfo) (alt SolventInfo, res int, ok bool) {
+func solventFromLines(ms []mplet, declared SolventInfo, field float64) (alt SolventInfo, res int, ok bool) {
 	for _, m := range ms {
 		if declared.Residual >= m.from-residualTol && declared.Residual <= m.to+residualTol {
 			return SolventInfo{}, -1, false
@@ -46,7 +46,7 @@ func solventFromLines(ms []mplet, declared SolventInfo) (alt SolventInfo, res in
 		}
 		r, wat := -1, -1
 		for j, m := range ms {
-			if math.Abs(m.ppm-s.Residual) <= residualTol && m.to-m.from <= maxSharpWidth {
+			if math.Abs(m.ppm-s.Residual) <= residualTol && m.to-m.from <= sharpWidth(field) {
 				r = j
 			} else if math.Abs(m.ppm-w) <= waterTol {
 				wat = j
