@@ -85,7 +85,9 @@ parsed before any work: a bad one is a usage error naming the flag and its
 position (--candidate 2) with the column and a caret. --field, when given, is
 the observe frequency in MHz, 1-10000.
 
-Output is a table on a terminal, tab-separated lines when piped, or JSON
+Output is a table on a terminal, tab-separated lines when piped (one
+record per line, its kind first: verdict, reason, assignment, missing,
+unexplained, purity, candidate, caution, warning, advisory), or JSON
 (--json) with the keys verdict, score, reasons, assignments, unexplained,
 missing, purity, candidates. --report FILE also writes an HTML report.
 
@@ -361,6 +363,13 @@ func printCheckTSV(w io.Writer, r *compare.Result) {
 	for _, c := range r.Candidates {
 		fmt.Fprintf(w, "candidate\t%d\t%s\t%.3f\t%s\n", c.Rank, c.Smiles, c.Score, c.Verdict)
 	}
+	for _, c := range r.Cautions {
+		fmt.Fprintf(w, "caution\t%s\n", c)
+	}
+	for _, s := range r.Warnings {
+		fmt.Fprintf(w, "warning\t%s\n", s)
+	}
+	fmt.Fprintf(w, "advisory\t%s\n", r.Advisory)
 }
 
 func orDash(s string) string {

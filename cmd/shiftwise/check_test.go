@@ -109,6 +109,11 @@ func TestCheckCommandOutputs(t *testing.T) {
 	if !strings.HasPrefix(out, "verdict\t") || !strings.Contains(out, "\nassignment\t") {
 		t.Errorf("piped output not tab-separated records:\n%s", out)
 	}
+	// The cautions and the advisory statement travel with piped output too
+	// (a script may be what a reviewer reads).
+	if !strings.Contains(out, "\ncaution\tintegrals assume") || !strings.Contains(out, "\nadvisory\t") || !strings.Contains(out, "qualified review") {
+		t.Errorf("piped output lacks cautions or the advisory statement:\n%s", out)
+	}
 	rep := filepath.Join(t.TempDir(), "r.html")
 	if code, _, e := runCheckCmd([]string{"--smiles", "CCC(C)=O", path, "--report", rep}, false); code != 0 {
 		t.Fatalf("report: exit %d %s", code, e)
