@@ -221,13 +221,17 @@ func pointToPPM(ppm []float64, pos float64) float64 {
 // rarely below 0.3 Hz, so the average hardly changes a line's shape.
 const crossSmoothHz = 0.1
 
-// crossSmooth is the half window (points) of that average.
+// crossSmooth is the half window (points) of that average, at most
+// crossSmoothMax (an absurdly fine axis must not make every step of the
+// walk long).
 func crossSmooth(hzPerPoint float64) int {
 	if !(hzPerPoint > 0) {
 		return 0
 	}
-	return int(crossSmoothHz / hzPerPoint)
+	return int(math.Min(crossSmoothHz/hzPerPoint, crossSmoothMax))
 }
+
+const crossSmoothMax = 8
 
 // halfWidth measures the full width at half height (in points) of the peak
 // at point i with the given height. A side on which the trace turns up
