@@ -33,6 +33,43 @@ func compoundWindows(pred *predict.Prediction, sig []predict.Signal, sigM []int,
 	return out
 }
 
+// compoundLines returns the predicted lines of the assigned
+// non-exchangeable signals, moved with their multiplets (by the measured
+// centre less the H-weighted mean predicted shift of the signals given to
+// it) and sorted by ppm; intensities in H.
+func compoundLines(pred *predict.Prediction, sig []predict.Signal, sigM []int, ms []mplet) []predict.Line {
+	sumH := map[int]float64{}
+	sumS := map[int]float64{}
+	host := map[string]int{}
+	for i, s := range sig {
+		if j := sigM[i]; j >= 0 && !s.Exchangeable {
+			sumH[j] += float64(s.NH)
+			sumS[j] += float64(s.NH) * s.ShiftPPM
+			host[s.Label] = j
+		}
+	}
+	var out []predict.Line
+	for _, l := range pred.Lines {
+		j, ok := host[l.Signal]
+		if !ok || sumH[j] == 0 {
+			continue
+		}
+		out = append(out, predict.Line{PPM: l.PPM + ms[j].ppm - sumS[j]/sumH[j], Intensity: l.Intensity, Signal: l.Signal})
+	}
+	sort.Slice(out, func(a, b int) bool { return out[a].PPM < out[b].PPM })
+	return out
+}
+
+// linesNear sums the intensities of the sorted lines within tol of x.
+func linesNear(ls []predict.Line, x, tol float64) float64 {
+	k := sort.Search(len(ls), func(i int) bool { return ls[i].PPM >= x-tol })
+	sum := 0.0
+	for ; k < len(ls) && ls[k].PPM <= x+tol; k++ {
+		sum += ls[k].Intensity
+	}
+	return sum
+}
+
 // overlapped reports whether multiplet m touches one of the windows.
 func overlapped(m mplet, win [][2]float64) bool {
 	for _, w := range win {

@@ -228,7 +228,8 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 	eff, pre = splitHiddenLines(&p2, sig, eff, pre, sigM, field, solv, solvOK)
 	ev := &evaluation{smiles: smi, pred: &p2, sigM: sigM, scale: scale, spread: spread, ms: eff, trace: trace,
 		solv: solv, solvOK: solvOK}
-	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras, compoundWindows(&p2, sig, sigM, eff, field))
+	ev.ex = explain(eff, pre, sig, sigM, scale, field, solv, solvOK, extras, compoundWindows(&p2, sig, sigM, eff, field),
+		compoundLines(&p2, sig, sigM, eff))
 	ev.evaluate(eff, field)
 	return ev
 }

@@ -53,9 +53,14 @@ func benchtopRates(t *testing.T, field float64, mode spin.Mode) (okTrue, okWrong
 
 // benchtopFinds counts the table contaminants (≥ 1 mol %) and given
 // impurities of the reference set that a check names.
-type benchtopFinds struct{ cont, contOK, imp, impOK int }
+type benchtopFinds struct{ cont, contOK, imp, impOK, wrongCont int }
 
 func (f *benchtopFinds) count(c refCompound, res *Result) {
+	for _, id := range res.Found {
+		if id.Kind == "contaminant" && (c.contaminant == "" || !strings.HasPrefix(id.Name, c.contaminant)) {
+			f.wrongCont++ // a table species that was not added
+		}
+	}
 	if c.contaminant != "" && c.contPct >= 1 {
 		f.cont++
 		for _, id := range res.Found {
@@ -94,23 +99,29 @@ func (f *benchtopFinds) count(c refCompound, res *Result) {
 // and 1/4 (sharp-line widths in ppm, satellites taken for contaminant
 // singlets, ties between neighbouring table lines, a broad water line
 // dropped by peak picking). The rest are hidden under compound multiplets
-// or merged with them at 60 MHz. The levels keep one compound of slack;
-// first-order prediction must not confirm more true structures or reject
-// more wrong candidates than auto.
+// or merged with them at 60 MHz. Table species named that were not added
+// (mostly a lone line of a compound multiplet or a 13C satellite, 1.2 ppm
+// from its parent at 60 MHz, at a tabulated singlet): 8 at 60 MHz and 9
+// at 90 MHz over the 46 spectra (2 at 400 MHz); before: 5 and 11. The
+// levels keep one compound of slack; first-order prediction must not
+// confirm more true structures or reject more wrong candidates than auto.
 func TestReferenceSetBenchtop(t *testing.T) {
 	if testing.Short() {
 		t.Skip("four passes over the reference set")
 	}
 	t.Parallel()
-	type rates struct{ true, wrong, flag, cont, imp int }
-	min := map[float64]rates{60: {45, 40, 35, 7, 1}, 90: {45, 42, 35, 12, 1}}
+	type rates struct{ true, wrong, flag, cont, imp, maxWrongCont int }
+	min := map[float64]rates{60: {45, 40, 35, 7, 1, 10}, 90: {45, 42, 35, 12, 1, 11}}
 	for _, field := range []float64{60, 90} {
 		a, b, c, f := benchtopRates(t, field, spin.Auto)
 		fa, fb, fc, _ := benchtopRates(t, field, spin.FirstOrder)
 		n := len(refSet)
-		t.Logf("%g MHz, auto: true consistent %d/%d, wrong rejected or ranked lower %d/%d, wrong as intended flagged %d/%d, contaminants named %d/%d, impurities %d/%d; first-order: %d, %d, %d",
-			field, a, n, b, n, c, n, f.contOK, f.cont, f.impOK, f.imp, fa, fb, fc)
+		t.Logf("%g MHz, auto: true consistent %d/%d, wrong rejected or ranked lower %d/%d, wrong as intended flagged %d/%d, contaminants named %d/%d, impurities %d/%d, species named but not added %d; first-order: %d, %d, %d",
+			field, a, n, b, n, c, n, f.contOK, f.cont, f.impOK, f.imp, f.wrongCont, fa, fb, fc)
 		m := min[field]
+		if f.wrongCont > m.maxWrongCont {
+			t.Errorf("%g MHz: %d table species named that were not added, at most %d expected", field, f.wrongCont, m.maxWrongCont)
+		}
 		if a < m.true || b < m.wrong || c < m.flag || f.contOK < m.cont || f.impOK < m.imp {
 			t.Errorf("%g MHz below measured levels: %d/%d/%d/%d/%d, want at least %d/%d/%d/%d/%d",
 				field, a, b, c, f.contOK, f.impOK, m.true, m.wrong, m.flag, m.cont, m.imp)
@@ -127,7 +138,7 @@ func TestReferenceSetBenchtop(t *testing.T) {
 // checked with every impurity structure of the set and a few common
 // ones (acetophenone, benzaldehyde, ethyl acetate, phenol, acetone,
 // naphthalene) at 60, 90 and 400 MHz: 454 checks per field. Measured
-// 2026-12-02: named wrongly in 14, 14 and 3; before the fixes of that day
+// 2026-12-02: named wrongly in 11, 13 and 3; before the fixes of that day
 // 53, 58 and 55 (the water line at 1.56 ppm was taken for acetone's CH3,
 // 0.6 ppm away, at 4.6 mol %; signals 3 SD from their prediction counted).
 // Levels: the measured counts plus two.
