@@ -62,6 +62,9 @@
 //     wider than 1.5 ppm (baseline humps: no real multiplet is that wide),
 //     besides the artifacts processing flags itself (a satellite without
 //     its mirror line is not accepted at a tabulated contaminant singlet);
+//     a free line of one or two peaks where the compound's predicted
+//     lines, moved with their multiplets, hold half its H is the
+//     compound's (an outer line of a wide 60 MHz pattern grouped apart);
 //     the internal standard and the
 //     --impurity structures (predicted, matched by a small assignment
 //     within 2 SD of each predicted shift, never to the water line for a
