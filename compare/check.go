@@ -120,8 +120,29 @@ func Check(in Input, opt Options) (*Result, error) {
 	rankCandidates(res, in, opt, pr, main, ms, pre, field, solv, solvOK, extras, canon, pl.Trace)
 	if qerr != nil {
 		qnmrMissingRule(res, qerr)
+	} else if q := res.Purity.QNMR; q != nil {
+		qnmrOverRule(res, q)
 	}
 	return res, nil
+}
+
+// qnmrOverRule: a mass purity above 100 % by more than twice its standard
+// uncertainty (and at least 2 points) cannot be: an integral holds another
+// signal, or a mass or the standard's purity was entered wrong. The verdict
+// is at least review, with the reason.
+func qnmrOverRule(res *Result, q *QNMR) {
+	if q.PurityPercent <= 100+math.Max(2, 2*q.Uncertainty) {
+		return
+	}
+	res.Reasons = append(res.Reasons, fmt.Sprintf("qNMR purity %.1f %% exceeds 100 %%: an integral includes another signal, or a mass or the standard's purity was entered wrong", q.PurityPercent))
+	if res.Verdict == Consistent {
+		res.Verdict = Review
+	}
+	for k := range res.Candidates {
+		if res.Candidates[k].Main {
+			res.Candidates[k].Verdict = res.Verdict
+		}
+	}
 }
 
 // qnmrMissingRule: an assay was asked for (an internal standard given) but

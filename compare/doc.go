@@ -202,6 +202,11 @@
 // water and unidentified peaks (their share is stated). With an internal
 // standard, QNMRPurity applies the qNMR equation and QNMRUncertainty
 // propagates the integral, weighing and purity uncertainties (see qnmr.go).
+// The analyte integral sums the compound multiplets that hold only
+// compound signals and no other species' line (the standard's and the
+// impurities' signals, matched or predicted, water and residual solvent,
+// within the region ± 0.02 ppm); a result above 100 % by more than twice
+// its uncertainty (and 2 points) is a reason for review.
 // Check refuses a Standard outside the bounds of Standard.Validate (masses
 // finite, 0.001–10,000 mg; purity in (0, 100] %), so that every term stays
 // finite; no NaN or ±Inf ever reaches a Result (multiplets without a finite

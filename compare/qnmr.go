@@ -117,8 +117,8 @@ func sq(x float64) float64 { return x * x }
 
 // qnmrFor applies the qNMR equation to a check: the analyte integral is the
 // summed area of the compound's multiplets that hold only compound signals
-// (non-exchangeable, not shared with anything identified), the standard's
-// the multiplet of its chosen signal.
+// (non-exchangeable, no other species' signal in their region:
+// analyteIntegral), the standard's the multiplet of its chosen signal.
 func qnmrFor(st *Standard, ev *evaluation, ms []mplet, extras []extraSpecies) (*QNMR, error) {
 	var std *extraSpecies
 	for k := range extras {
@@ -148,9 +148,9 @@ func qnmrFor(st *Standard, ev *evaluation, ms []mplet, extras []extraSpecies) (*
 		return nil, fmt.Errorf("qNMR: internal standard signal at %.2f ppm not found; no qNMR result", st.SignalPPM)
 	}
 	hs := hits[best]
-	ia, na, perH := analyteIntegral(ev, ms)
+	ia, na, perH := analyteIntegral(ev, ms, foreignShifts(ev, ms, extras))
 	if na == 0 {
-		return nil, errors.New("qNMR: no clean compound multiplet to integrate")
+		return nil, errors.New("qNMR: no clean compound multiplet to integrate (every compound multiplet shares its region with another signal)")
 	}
 	q := QNMR{IntegralAnalyte: ia, IntegralStandard: ms[hs.j].area, NAnalyte: na, NStandard: hs.sig.NH,
 		MAnalyte: ev.pred.MolecularWeight, MStandard: std.mw, MassAnalyteMg: st.SampleMassMg,
@@ -180,28 +180,71 @@ func qnmrFor(st *Standard, ev *evaluation, ms []mplet, extras []extraSpecies) (*
 	return &q, nil
 }
 
-// analyteIntegral sums the areas and H of the clean compound multiplets and
-// returns the relative standard error of their per-H areas.
-func analyteIntegral(ev *evaluation, ms []mplet) (area float64, nh int, relSE float64) {
-	count := map[int]int{}
+// foreignShifts lists where signals that are not the compound's may lie:
+// the internal standard's and the given impurities' signals (where they
+// were matched, else where predicted) and, when the solvent is known, its
+// water and residual lines. A compound multiplet whose region holds one
+// of them is not clean for qNMR: at 60 MHz the OCH3 singlets of methyl
+// 4-nitrobenzoate (3.94) and of 1,3,5-trimethoxybenzene (3.78) merge into
+// one multiplet, and integrating it as the analyte gave 183 %.
+func foreignShifts(ev *evaluation, ms []mplet, extras []extraSpecies) []float64 {
+	var out []float64
+	for _, e := range extras {
+		at := map[string]float64{}
+		for _, h := range ev.ex.extraHits[e.name] {
+			at[h.sig.Label] = ms[h.j].ppm
+		}
+		for _, s := range e.sig {
+			if p, ok := at[s.Label]; ok {
+				out = append(out, p)
+			} else {
+				out = append(out, s.ShiftPPM)
+			}
+		}
+	}
+	if ev.solvOK {
+		out = append(out, ev.solv.Residual)
+		if w, ok := waterShift(ev.solv.Name); ok {
+			out = append(out, w)
+		}
+	}
+	return out
+}
+
+// analyteIntegral sums the areas and H of the clean compound multiplets
+// (compound signals only, none exchangeable or far from its prediction,
+// no foreign shift within the region ± 0.02 ppm) and returns the relative
+// standard error of their per-H areas. A multiplet holding several
+// compound signals (an aromatic AA'BB' envelope) counts with their summed H.
+func analyteIntegral(ev *evaluation, ms []mplet, foreign []float64) (area float64, nh int, relSE float64) {
+	hAt := map[int]int{}
 	bad := map[int]bool{}
 	for i, j := range ev.sigM {
 		if j < 0 {
 			continue
 		}
-		count[j]++
+		hAt[j] += ev.pred.Signals[i].NH
 		if ev.pred.Signals[i].Exchangeable || ev.z[i] > poorZ {
 			bad[j] = true
 		}
 	}
 	var perH []float64
-	for i, j := range ev.sigM {
-		if j < 0 || count[j] != 1 || bad[j] || ev.ex.owner[j] != "compound" {
+	for j, h := range hAt {
+		if bad[j] || ev.ex.owner[j] != "compound" || h == 0 {
+			continue
+		}
+		clean := true
+		for _, x := range foreign {
+			if x >= ms[j].from-0.02 && x <= ms[j].to+0.02 {
+				clean = false
+			}
+		}
+		if !clean {
 			continue
 		}
 		area += ms[j].area
-		nh += ev.pred.Signals[i].NH
-		perH = append(perH, ms[j].area/float64(ev.pred.Signals[i].NH))
+		nh += h
+		perH = append(perH, ms[j].area/float64(h))
 	}
 	if len(perH) > 1 {
 		mean, v := 0.0, 0.0

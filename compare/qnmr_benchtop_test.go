@@ -1,0 +1,78 @@
+package compare
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"shiftwise/internal/synth"
+)
+
+// TestQNMRAcrossFields: the qNMR equation (purity = (I_x/I_std)·(N_std/N_x)
+// ·(M_x/M_std)·(m_std/m_sample)·P_std; the usual internal-standard form,
+// common practice, no source) applied to synthetic spectra of methyl
+// 4-nitrobenzoate with 1,3,5-trimethoxybenzene as internal standard
+// (invented data: 0.40 mol of standard per mol of compound, 12.0 mg sample
+// of which 10.0 mg compound, so the true purity is 83.33 %). At 400 and at
+// 60 MHz the assay must come out within 1.5 percentage points, and at 60
+// MHz the standard's singlets (6.10, 3.78 ppm) must still be told from
+// the compound's OCH3 (3.94 ppm, 10 Hz away).
+func TestQNMRAcrossFields(t *testing.T) {
+	t.Parallel()
+	const compound, std = "COC(=O)c1ccc(cc1)[N+](=O)[O-]", "COc1cc(OC)cc(OC)c1"
+	const mx, mstd = 181.147, 168.192 // g/mol (standard atomic weights)
+	const nx = 10.0 / mx               // mmol of compound in 10.0 mg
+	stdMg := 0.40 * nx * mstd          // mg of standard for 0.40 mol per mol
+	for _, field := range []float64{400, 60} {
+		r := synth.Recipe{FieldMHz: field, Seed: 5, Satellites: true, Extra: []synth.Singlet{cdcl3Water},
+			Components: []synth.Component{{Smiles: compound, Moles: 1, Jitter: 0.01}, {Smiles: std, Moles: 0.40}}}
+		spec, err := synth.Make(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		res, err := Check(Input{Smiles: compound, Spectrum: spec,
+			Standard: &Standard{Smiles: std, MassMg: stdMg, SampleMassMg: 12.0, PurityPct: 100}}, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if res.Purity.QNMRMassPercent == nil {
+			t.Errorf("%g MHz: no qNMR result: %v", field, res.Reasons)
+			continue
+		}
+		got := *res.Purity.QNMRMassPercent
+		t.Logf("%g MHz: qNMR %.2f %% (true 83.33 %%), verdict %s", field, got, res.Verdict)
+		if math.Abs(got-83.33) > 1.5 {
+			t.Errorf("%g MHz: qNMR purity %.2f %%, want 83.33 ± 1.5", field, got)
+		}
+	}
+}
+
+// TestQNMROver100: a standard mass entered 2.5 times too high gives a mass
+// purity far above 100 %, which cannot be (a mass fraction, by
+// definition): the verdict is at least review and the reason says so.
+func TestQNMROver100(t *testing.T) {
+	t.Parallel()
+	const compound, std = "COC(=O)c1ccc(cc1)[N+](=O)[O-]", "COc1cc(OC)cc(OC)c1"
+	const mx, mstd = 181.147, 168.192
+	stdMg := 0.40 * (10.0 / mx) * mstd
+	r := synth.Recipe{FieldMHz: 400, Seed: 5, Satellites: true, Extra: []synth.Singlet{cdcl3Water},
+		Components: []synth.Component{{Smiles: compound, Moles: 1, Jitter: 0.01}, {Smiles: std, Moles: 0.40}}}
+	spec, err := synth.Make(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		mg     float64
+		review bool
+	}{{stdMg, false}, {2.5 * stdMg, true}} {
+		res, err := Check(Input{Smiles: compound, Spectrum: spec,
+			Standard: &Standard{Smiles: std, MassMg: c.mg, SampleMassMg: 12.0, PurityPct: 100}}, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		over := strings.Contains(strings.Join(res.Reasons, " "), "exceeds 100 %")
+		if over != c.review || c.review && res.Verdict == Consistent {
+			t.Errorf("standard %.2f mg: verdict %s, reasons %q", c.mg, res.Verdict, res.Reasons)
+		}
+	}
+}
