@@ -21,8 +21,8 @@ func TestQNMRAcrossFields(t *testing.T) {
 	t.Parallel()
 	const compound, std = "COC(=O)c1ccc(cc1)[N+](=O)[O-]", "COc1cc(OC)cc(OC)c1"
 	const mx, mstd = 181.147, 168.192 // g/mol (standard atomic weights)
-	const nx = 10.0 / mx               // mmol of compound in 10.0 mg
-	stdMg := 0.40 * nx * mstd          // mg of standard for 0.40 mol per mol
+	const nx = 10.0 / mx              // mmol of compound in 10.0 mg
+	stdMg := 0.40 * nx * mstd         // mg of standard for 0.40 mol per mol
 	for _, field := range []float64{400, 60} {
 		r := synth.Recipe{FieldMHz: field, Seed: 5, Satellites: true, Extra: []synth.Singlet{cdcl3Water},
 			Components: []synth.Component{{Smiles: compound, Moles: 1, Jitter: 0.01}, {Smiles: std, Moles: 0.40}}}
