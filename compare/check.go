@@ -241,7 +241,7 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 	}
 	p2 := *pred
 	p2.Signals = sig
-	sigM, scale, spread := matchStructure(sig, ms, avail, penalty, field)
+	sigM, scale, spread := matchStructure(sig, ms, avail, penalty, waterLines(ms, solv, solvOK), field)
 	eff := absorbParts(sig, ms, avail, sigM, scale)
 	if s, sp := fitScale(sig, eff, sigM, penalty); s > 0 {
 		scale, spread = s, sp
@@ -253,6 +253,23 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 		compoundLines(&p2, sig, sigM, eff))
 	ev.evaluate(eff, field)
 	return ev
+}
+
+// waterLines marks the multiplets centred within waterTol of the solvent's
+// water shift (nil when the solvent is unknown).
+func waterLines(ms []mplet, solv SolventInfo, solvOK bool) []bool {
+	if !solvOK {
+		return nil
+	}
+	w, ok := waterShift(solv.Name)
+	if !ok {
+		return nil
+	}
+	out := make([]bool, len(ms))
+	for j, m := range ms {
+		out[j] = math.Abs(m.ppm-w) <= waterTol
+	}
+	return out
 }
 
 // maxSignals caps the work of one assignment (a 30-heavy-atom molecule has

@@ -49,8 +49,16 @@
 //     integral term, its multiplicity counted (a singlet, broad line or
 //     "m" at 0.3: exchange can still collapse it) and a missing cost of 6.
 //     The residual-solvent peak can
-//     take a signal at a cost of 4 (a compound line hidden under CHCl3).
-//  2. Integral scale. H per unit area is the H-weighted median of
+//     take a signal at a cost of 4 (a compound line hidden under CHCl3),
+//     its integral counting only when short of the signal's H (a 2 H
+//     signal does not hide in a 0.08 H line). A multiplet is the residual
+//     peak only when shaped like it: no more peaks than its pattern's lines
+//     plus two, one within 0.015 ppm of the tabulated shift (a compound
+//     multiplet beside it is not); the same holds when the solvent is read
+//     from the lines.
+//  2. Integral scale. H per unit area starts as the non-exchangeable H
+//     over the area of the multiplets, the water line left out, and is
+//     then the H-weighted median of
 //     (assigned H)/(area) over the assigned multiplets, alternated with the
 //     assignment until it settles (at most 3 rounds); never one peak alone.
 //  3. Second parts. A free multiplet within 3 SD of a signal whose

@@ -76,7 +76,7 @@ func claimFixed(ms []mplet, solv SolventInfo, solvOK bool, field float64) []stri
 			owner[j] = "solvent"
 		case m.label == spectrum.LabelTMS:
 			owner[j] = "reference"
-		case solvOK && math.Abs(m.ppm-solv.Residual) <= 0.03 && w <= resW:
+		case solvOK && math.Abs(m.ppm-solv.Residual) <= 0.03 && w <= resW && residualLike(m, solv):
 			owner[j] = "solvent"
 		case math.Abs(m.ppm) <= 0.03 && w <= tmsW:
 			owner[j] = "reference"
@@ -596,6 +596,57 @@ const (
 	maxSharpWidthHz = 45.0
 )
 
+// resolvedMult is m's multiplicity, or "m" when its splittings are smaller
+// than its lines are wide: a broad line (water, 4 Hz) with a noise bump on
+// its top reads as a "d" of 1.4 Hz, which is no resolved doublet.
+func resolvedMult(m mplet) string {
+	if len(m.j) == 0 || len(m.pk) == 0 {
+		return m.mult
+	}
+	ws := make([]float64, 0, len(m.pk))
+	for _, p := range m.pk {
+		if p.WidthHz > 0 {
+			ws = append(ws, p.WidthHz)
+		}
+	}
+	if len(ws) == 0 {
+		return m.mult
+	}
+	sort.Float64s(ws)
+	jmax := 0.0
+	for _, j := range m.j {
+		jmax = math.Max(jmax, j)
+	}
+	if jmax < ws[len(ws)/2] {
+		return "m"
+	}
+	return m.mult
+}
+
+// residualLike reports whether multiplet m can be the residual solvent
+// signal: no more peaks than its pattern has lines (s 1, t 3, quint 5)
+// plus two (a satellite, a noise peak), and one of them within 0.015 ppm
+// of the tabulated shift. A compound multiplet beside it (acetanilide's
+// meta-H triplet at 7.29, seven peaks, 0.03 ppm from CHCl3) is not.
+func residualLike(m mplet, solv SolventInfo) bool {
+	lines := map[string]int{"s": 1, "d": 2, "t": 3, "q": 4, "quint": 5, "p": 5}[solv.ResidualMult]
+	if lines == 0 {
+		lines = 5
+	}
+	if len(m.pk) > lines+2 {
+		return false
+	}
+	if len(m.pk) == 0 {
+		return true // a peak list without peaks: centre only
+	}
+	for _, p := range m.pk {
+		if math.Abs(p.PPM-solv.Residual) <= 0.015 {
+			return true
+		}
+	}
+	return false
+}
+
 // sharpWidth is the widest sharp-line region (ppm) at field MHz.
 func sharpWidth(field float64) float64 {
 	if !(field > 0) {
@@ -624,11 +675,14 @@ func (ex *explanation) tryTable(ms []mplet, sp Species, solvent string, scale fl
 			if sp.Kind == "contaminant" && sg.Mult != "m" && w > sharpWidth(ex.field) {
 				continue // a broad hump is not a sharp solvent line
 			}
-			if !tableMultOK(sg.Mult, ms[j].mult) {
+			if !tableMultOK(sg.Mult, resolvedMult(ms[j])) {
 				continue // a tabulated singlet is not a resolved d, t, q, …
 			}
 			d := math.Max(0, math.Abs(ms[j].ppm-want)-0.5*w)
-			if d <= sp.Tol && d < bd {
+			// Equal credited distances (both within half their width):
+			// the closer centre wins (a noise bump on a broad water
+			// line's flank is grouped apart and sits beside it).
+			if d <= sp.Tol && (d < bd || d == bd && math.Abs(ms[j].ppm-want) < math.Abs(ms[best].ppm-want)) {
 				best, bd = j, d
 			}
 		}

@@ -67,13 +67,18 @@ func (ev *evaluation) integralConflicts(ms []mplet) []string {
 		}
 	}
 	type vote struct {
-		j    int
-		r, w float64
+		j       int
+		r, w    float64
+		tainted bool
 	}
 	var vs []vote
 	for j, e := range exp {
 		if e > 0 && ms[j].area > 0 {
-			vs = append(vs, vote{j, e / ms[j].area, math.Min(e, 3) / float64(nsig[j])})
+			// A multiplet holding the water line, the residual solvent or
+			// an identified species has area that is not the compound's:
+			// it may be contradicted but does not set the consensus (at
+			// 60 MHz DMSO's water at 3.33 merges with a CH2Br at 3.42).
+			vs = append(vs, vote{j, e / ms[j].area, math.Min(e, 3) / float64(nsig[j]), ev.excessExplained(ms[j])})
 		}
 	}
 	if len(vs) < 2 || !(ev.scale > 0) {
@@ -82,21 +87,29 @@ func (ev *evaluation) integralConflicts(ms []mplet) []string {
 	sort.Slice(vs, func(a, b int) bool { return vs[a].r < vs[b].r || vs[a].r == vs[b].r && vs[a].j < vs[b].j })
 	total := 0.0
 	for _, v := range vs {
-		total += v.w
+		if !v.tainted {
+			total += v.w
+		}
 	}
 	cons, acc := 0.0, 0.0
 	for _, v := range vs {
+		if v.tainted {
+			continue
+		}
 		acc += v.w
 		if acc >= total/2 {
 			cons = v.r
 			break
 		}
 	}
+	if !(cons > 0) {
+		return nil
+	}
 	agree := map[int]bool{}
 	var agreeJ []int
 	agreeH := 0.0
 	for _, v := range vs {
-		if math.Abs(math.Log(v.r/cons)) <= math.Log1p(agreeFrac) {
+		if !v.tainted && math.Abs(math.Log(v.r/cons)) <= math.Log1p(agreeFrac) {
 			agree[v.j] = true
 			agreeJ = append(agreeJ, v.j)
 			agreeH += exp[v.j]

@@ -11,7 +11,9 @@ import (
 // Tolerances: residual lines sit within ±0.03 ppm of their tabulated shift
 // and water moves by about ±0.1 ppm with concentration and temperature
 // (Gottlieb 1997, Fulmer 2010; values from memory); a residual multiplet is
-// narrow (at most sharpWidth).
+// narrow (at most sharpWidth) and shaped like one (residualLike: at 60 MHz
+// propylbenzene's aromatic envelope at 7.24 and its CH2 at 1.62 passed for
+// CHCl3 and its water, and a CD3OD spectrum was read as CDCl3).
 const (
 	residualTol = 0.03
 	waterTol    = 0.10
@@ -46,7 +48,7 @@ func solventFromLines(ms []mplet, declared SolventInfo, field float64) (alt Solv
 		}
 		r, wat := -1, -1
 		for j, m := range ms {
-			if math.Abs(m.ppm-s.Residual) <= residualTol && m.to-m.from <= sharpWidth(field) {
+			if math.Abs(m.ppm-s.Residual) <= residualTol && m.to-m.from <= sharpWidth(field) && residualLike(m, s) {
 				r = j
 			} else if math.Abs(m.ppm-w) <= waterTol {
 				wat = j
