@@ -139,6 +139,11 @@
 //   - any signal is missing or more than 3 SD away;
 //   - two or more signals (or over 20 % of the H) have a clearly different
 //     multiplicity, or the splitting score is below 0.50;
+//   - the shifts part score is below 0.80 (every signal within 3 SD, yet
+//     together too far off: acetophenone checked as acetanilide), or the
+//     splitting score is below 0.65 while the integral score is below
+//     0.90 (2-butanol checked as isobutanol); true structures of the
+//     reference sets and the real spectra score at least 0.83 on shifts;
 //   - the integral score is below 0.80;
 //   - a region (below 3, 3–6.3, 6.3–9, above 9 ppm, by predicted shift)
 //     integrates at least 1 H (at 0.1 H) and 20 % short of the H expected

@@ -29,6 +29,14 @@ const (
 	reviewIntegral    = 0.80 // below: review
 	maxShapeFrac      = 0.20 // H with a clearly different multiplicity above this: review
 	shapeWeight       = 0.5  // share of the trace-shape correlation in the splitting score
+	// reviewShifts: a shifts part score below this asks for review; true
+	// structures of the reference sets and the real spectra score at least
+	// 0.83, other compounds that passed before this rule 0.70–0.79.
+	reviewShifts = 0.80
+	// jointSplitting and jointIntegrals: both part scores below these ask
+	// for review (true structures: 1 in 435 below both).
+	jointSplitting = 0.65
+	jointIntegrals = 0.90
 )
 
 // evaluation is one structure scored against the spectrum.
@@ -224,6 +232,18 @@ func (ev *evaluation) decide(ms []mplet, field, nonExch, badH, poorH float64) {
 	}
 	if p.Splitting < reviewSplitting {
 		rs = append(rs, fmt.Sprintf("multiplicities and multiplet shapes agree poorly overall (splitting %.0f %%)", 100*p.Splitting))
+		review = true
+	}
+	// Every signal can sit within 3 SD and the score still pass while
+	// the signals together lie too far off (acetophenone checked as
+	// acetanilide: all four about 0.4 ppm away), or while shapes and
+	// integrals are both mediocre (2-butanol as isobutanol): review.
+	if p.Shifts < reviewShifts {
+		rs = append(rs, fmt.Sprintf("shifts agree poorly overall (%.0f %%): the signals together lie further from their predicted positions than prediction error explains", 100*p.Shifts))
+		review = true
+	}
+	if p.Splitting < jointSplitting && p.Integrals < jointIntegrals {
+		rs = append(rs, fmt.Sprintf("multiplet shapes (%.0f %%) and integrals (%.0f %%) both agree poorly", 100*p.Splitting, 100*p.Integrals))
 		review = true
 	}
 	if nonExch > 0 && badH/nonExch > maxBadFrac {
