@@ -79,7 +79,7 @@
 //     signal predicted away from it; at least half their H found, or, when
 //     the rest is predicted under compound multiplets, found signals within
 //     1 SD and 0.3 ppm clear of the compound's multiplets (benzaldehyde's
-//     CHO beside an aromatic compound at 60 MHz); the amount is the H-weighted median of the
+//     CHO beside an aromatic compound at 60 MHz); the amount is the H-weighted (upper) median of the
 //     per-proton amounts of the signals clear of the compound's lines —
 //     predicted lines ± 3 Hz around the predicted shift and around the
 //     assigned multiplet, and that multiplet — or, when all overlap, the
