@@ -107,10 +107,7 @@ func (f *benchtopFinds) count(c refCompound, res *Result) {
 // levels keep one compound of slack; first-order prediction must not
 // confirm more true structures or reject more wrong candidates than auto.
 func TestReferenceSetBenchtop(t *testing.T) {
-	if testing.Short() {
-		t.Skip("four passes over the reference set")
-	}
-	t.Parallel()
+	slowParallel(t, "four passes over the reference set")
 	type rates struct{ true, wrong, flag, cont, imp, maxWrongCont int }
 	min := map[float64]rates{60: {44, 40, 35, 7, 1, 10}, 90: {45, 42, 35, 12, 1, 11}}
 	for _, field := range []float64{60, 90} {
@@ -144,10 +141,7 @@ func TestReferenceSetBenchtop(t *testing.T) {
 // 0.6 ppm away, at 4.6 mol %; signals 3 SD from their prediction counted).
 // Levels: the measured counts plus two.
 func TestGivenImpurityAbsent(t *testing.T) {
-	if testing.Short() {
-		t.Skip("1,362 checks")
-	}
-	t.Parallel()
+	slowParallel(t, "1,362 checks")
 	imps := []string{"CC(=O)c1ccccc1", "O=Cc1ccccc1", "CCOC(C)=O", "Oc1ccccc1", "CC(C)=O", "c1ccc2ccccc2c1"}
 	for _, c := range refSet {
 		if c.impurity != "" {

@@ -19,10 +19,7 @@ import (
 // an impurity singlet decided the median). Every sample stays consistent.
 // Levels: the measured counts less one.
 func TestGivenImpurityAmounts(t *testing.T) {
-	if testing.Short() {
-		t.Skip("92 checks")
-	}
-	t.Parallel()
+	slowParallel(t, "92 checks")
 	type level struct{ found, close int }
 	min := map[float64]level{400: {41, 40}, 60: {33, 27}}
 	for _, field := range []float64{400, 60} {
@@ -31,14 +28,7 @@ func TestGivenImpurityAmounts(t *testing.T) {
 			o := refSet[(k+5)%len(refSet)]
 			r := synth.Recipe{FieldMHz: field, Seed: uint64(k + 9), Satellites: true, Extra: []synth.Singlet{cdcl3Water},
 				Components: []synth.Component{{Smiles: c.smiles, Moles: 1, Jitter: 0.01}, {Smiles: o.smiles, Moles: 0.05 / 0.95, Jitter: 0.01}}}
-			spec, err := synth.Make(r)
-			if err != nil {
-				t.Fatal(err)
-			}
-			res, err := Check(Input{Smiles: c.smiles, Spectrum: spec, Impurities: []string{o.smiles}}, Options{})
-			if err != nil {
-				t.Fatal(err)
-			}
+			res := synthCheck(t, r, Input{Smiles: c.smiles, Impurities: []string{o.smiles}})
 			if res.Verdict == Consistent {
 				cons++
 			}

@@ -21,29 +21,19 @@ import (
 // and ethyl propanoate as 1-propanol at 400 MHz. Levels: the measured
 // counts plus one.
 func TestOtherCompoundsRejected(t *testing.T) {
-	if testing.Short() {
-		t.Skip("276 checks")
-	}
-	t.Parallel()
+	slowParallel(t, "276 checks")
 	max := map[float64]int{60: 9, 400: 3}
 	for _, field := range []float64{60, 400} {
 		pass, n := 0, 0
 		for k, c := range refSet {
 			r := synth.Recipe{FieldMHz: field, Seed: uint64(k + 3), Satellites: true,
 				Components: []synth.Component{{Smiles: c.smiles, Moles: 1, Jitter: 0.01}}, Extra: []synth.Singlet{cdcl3Water}}
-			spec, err := synth.Make(r)
-			if err != nil {
-				t.Fatal(err)
-			}
 			for _, d := range []int{1, 7, 19} {
 				o := refSet[(k+d)%len(refSet)]
 				if o.smiles == c.smiles {
 					continue
 				}
-				res, err := Check(Input{Smiles: o.smiles, Spectrum: spec}, Options{})
-				if err != nil {
-					t.Fatal(err)
-				}
+				res := synthCheck(t, r, Input{Smiles: o.smiles})
 				n++
 				if res.Verdict == Consistent {
 					pass++

@@ -12,6 +12,16 @@ import (
 // Water in CDCl3 at 1.56 ppm (Gottlieb 1997 Table 1, value from memory).
 var cdcl3Water = synth.Singlet{PPM: 1.56, H: 0.05, WidthHz: 2}
 
+// slowParallel skips a long sweep under -short (saying how many checks it
+// runs) and lets it run in parallel otherwise.
+func slowParallel(t *testing.T, what string) {
+	t.Helper()
+	if testing.Short() {
+		t.Skip(what)
+	}
+	t.Parallel()
+}
+
 func synthCheck(t *testing.T, r synth.Recipe, in Input) *Result {
 	t.Helper()
 	spec, err := synth.Make(r)

@@ -26,10 +26,7 @@ import (
 // CHCl3/water and the solvent was switched, and a water line with a noise
 // bump on top read as a "d" and could not be water.
 func TestWetSamplesOwnStructure(t *testing.T) {
-	if testing.Short() {
-		t.Skip("368 checks")
-	}
-	t.Parallel()
+	slowParallel(t, "368 checks")
 	waters := []struct {
 		solvent string
 		ppm     float64
@@ -41,14 +38,7 @@ func TestWetSamplesOwnStructure(t *testing.T) {
 				r := synth.Recipe{FieldMHz: field, Solvent: w.solvent, Seed: uint64(k + 1), Satellites: true,
 					Components: []synth.Component{{Smiles: c.smiles, Moles: 1, Jitter: 0.01}},
 					Extra:      []synth.Singlet{{PPM: w.ppm, H: 1.5, WidthHz: 4}}}
-				spec, err := synth.Make(r)
-				if err != nil {
-					t.Fatal(err)
-				}
-				res, err := Check(Input{Smiles: c.smiles, Spectrum: spec}, Options{})
-				if err != nil {
-					t.Fatalf("%s %s %g MHz: %v", c.name, w.solvent, field, err)
-				}
+				res := synthCheck(t, r, Input{Smiles: c.smiles})
 				n++
 				if res.Verdict == Consistent {
 					ok++
