@@ -156,7 +156,8 @@
 //     long alkyl envelope can set it alone and hide a homolog's extra or
 //     missing CH2 groups. Each multiplet then votes once (weight
 //     min(H, 3)/signals in it: a clean OCH3 counts fully, an envelope
-//     little); when that consensus, backed by two agreeing multiplets of
+//     little; one holding the water line, the residual solvent or an
+//     identified species does not vote); when that consensus, backed by two agreeing multiplets of
 //     3 H or more (within 25 % of it; or, of two multiplets, one clean
 //     one of at least 2 H), differs from the fitted scale by 25 %, the
 //     multiplets it

@@ -45,7 +45,9 @@ const (
 // two multiplets, by one clean multiplet of at least 2 H holding one
 // signal), the multiplets it contradicts are summed, short ones and long
 // ones apart: off by offH and misfitFrac of their H together, they are
-// named. Without such a conflict, on the fitted scale, a compound
+// named. A multiplet holding the water line, the residual solvent or an
+// identified species (excessExplained) votes on neither side of the
+// consensus but may be contradicted. Without such a conflict, on the fitted scale, a compound
 // multiplet holding offH and excessFrac more H than its signals is named
 // unless water, the residual solvent or an identified species lies in it.
 // Either way the excess is a homolog's extra CH2 groups, water or an
