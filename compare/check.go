@@ -229,15 +229,15 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 	solv SolventInfo, solvOK bool, extras []extraSpecies, trace *spectrum.Spectrum) *evaluation {
 	avail := make([]bool, len(ms))
 	penalty := make([]float64, len(ms))
-	for j := range ms {
-		avail[j] = pre[j] == "" || pre[j] == "solvent"
-		if pre[j] == "solvent" {
-			penalty[j] = solventCost
-		}
-	}
 	sig := pred.Signals
 	if len(sig) > maxSignals {
 		sig = sig[:maxSignals]
+	}
+	for j := range ms {
+		avail[j] = pre[j] == "" || pre[j] == "solvent"
+		if pre[j] == "solvent" && !compoundUnderResidual(sig, ms, pre, j) {
+			penalty[j] = solventCost
+		}
 	}
 	p2 := *pred
 	p2.Signals = sig
@@ -254,6 +254,43 @@ func evaluateStructure(smi string, pred *predict.Prediction, ms []mplet, pre []s
 	ev.evaluate(eff, field)
 	return ev
 }
+
+// compoundUnderResidual reports whether the multiplet j taken as the
+// residual solvent is mostly the compound's: on the first integral
+// estimate (the compound's non-exchangeable H over the other multiplets'
+// area) it holds at least residualMaxH, and compound signals are
+// predicted inside it (± 0.05 ppm). At 60 MHz a phenyl group's five H
+// collapse into one line at 7.30 that processing takes for CHCl3; the
+// residual cannot be that large next to it, so the multiplet is assigned
+// like any other (its small residual share is excess area).
+func compoundUnderResidual(sig []predict.Signal, ms []mplet, pre []string, j int) bool {
+	nh, area := 0, 0.0
+	for _, s := range sig {
+		if !s.Exchangeable {
+			nh += s.NH
+		}
+	}
+	for k, m := range ms {
+		if k != j && pre[k] == "" {
+			area += m.area
+		}
+	}
+	if nh == 0 || !(area > 0) || ms[j].area*float64(nh)/area < residualMaxH {
+		return false
+	}
+	for _, s := range sig {
+		if !s.Exchangeable && s.ShiftPPM >= ms[j].from-0.05 && s.ShiftPPM <= ms[j].to+0.05 {
+			return true
+		}
+	}
+	return false
+}
+
+// residualMaxH: a residual solvent line holding this many H-equivalents
+// of the compound is not only residual (common practice, no source: a
+// well-deuterated solvent's residual stays well below one proton of a
+// 5–20 mg sample).
+const residualMaxH = 1.5
 
 // waterLines marks the multiplets centred within waterTol of the solvent's
 // water shift (nil when the solvent is unknown).

@@ -55,7 +55,10 @@
 //     peak only when shaped like it: no more peaks than its pattern's lines
 //     plus two, one within 0.015 ppm of the tabulated shift (a compound
 //     multiplet beside it is not); the same holds when the solvent is read
-//     from the lines.
+//     from the lines. A residual peak that holds 1.5 H or more of the
+//     compound on a first estimate, with compound signals predicted in it,
+//     is assigned like any multiplet (a 60 MHz phenyl line at 7.30 taken
+//     for CHCl3).
 //  2. Integral scale. H per unit area starts as the non-exchangeable H
 //     over the area of the multiplets, the water line left out, and is
 //     then the H-weighted median of
