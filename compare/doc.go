@@ -175,6 +175,11 @@
 //     proton-sized signal rather than a scatter of traces); the reason names
 //     the largest;
 //   - the score is below 0.75;
+//   - the molar purity by integrals, or the qNMR mass purity, is below
+//     Options.MinPurityPct (the lab's specification; DefaultMinPurity, 80
+//     %, when not given): the reason names the largest other species. A
+//     sample that is mostly something else is no "consistent", whatever
+//     the structure's fit;
 //   - an internal standard was given but no qNMR result could be
 //     computed (the standard, or its signal at Standard.SignalPPM within
 //     0.1 ppm, not found; no clean compound multiplet): the reason says

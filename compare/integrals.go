@@ -126,7 +126,15 @@ func (ev *evaluation) integralConflicts(ms []mplet) []string {
 	for _, v := range vs {
 		j := v.j
 		got := ms[j].area * ev.scale
-		if excess := got - all[j]; excess >= offH && excess >= excessFrac*all[j] && !ev.excessExplained(ms[j]) {
+		excess := got - all[j]
+		excused := false
+		switch ev.foreignIn(ms[j]) {
+		case foreignSpecies:
+			excused = true
+		case foreignSolvent:
+			excused = excess <= waterExcuseH
+		}
+		if excess >= offH && excess >= excessFrac*all[j] && !excused {
 			out = append(out, fmt.Sprintf("the multiplet at %.2f holds %.1f H where %.0f are expected (a longer chain, or an impurity under it?)",
 				ms[j].ppm, got, all[j]))
 		}
@@ -189,29 +197,56 @@ func holds(n int) string {
 // identified in the sample has a tabulated line in multiplet m (± 0.05
 // ppm): extra area there has a known source.
 func (ev *evaluation) excessExplained(m mplet) bool {
+	return ev.foreignIn(m) != foreignNone
+}
+
+// Kinds of foreign line in a multiplet (foreignIn).
+const (
+	foreignNone    = iota
+	foreignSolvent // the water line or the residual solvent
+	foreignSpecies // a species identified in the sample
+)
+
+// foreignIn reports what foreign line lies in multiplet m (± 0.05 ppm):
+// an identified species' tabulated line, or the water line or residual
+// solvent, or none.
+func (ev *evaluation) foreignIn(m mplet) int {
 	if !ev.solvOK {
-		return false
+		return foreignNone
 	}
 	in := func(p float64) bool { return p >= m.from-0.05 && p <= m.to+0.05 }
-	if in(ev.solv.Residual) {
-		return true
-	}
 	found := map[string]bool{}
 	for _, f := range ev.ex.found {
 		found[f.Name] = true
+	}
+	kind := foreignNone
+	if in(ev.solv.Residual) {
+		kind = foreignSolvent
 	}
 	for _, sp := range SpeciesFor(ev.solv.Name) {
 		if sp.Kind != "water" && !found[sp.Name] {
 			continue
 		}
 		for _, sg := range sp.Signals {
-			if in(sg.PPM[ev.solv.Name]) {
-				return true
+			if !in(sg.PPM[ev.solv.Name]) {
+				continue
+			}
+			if sp.Kind == "water" {
+				kind = max(kind, foreignSolvent)
+			} else {
+				return foreignSpecies
 			}
 		}
 	}
-	return false
+	return kind
 }
+
+// waterExcuseH: an excess of at most this many H in a multiplet holding
+// the water line or the residual solvent is put down to them; more is
+// not (at 60 MHz CDCl3's water at 1.56 lies inside every alkyl envelope,
+// and a homolog's extra CH2 groups hid behind it). A wet sample's water
+// rarely exceeds this against one molecule (common practice, no source).
+const waterExcuseH = 3.0
 
 // ppmList names multiplets by position, high ppm first ("3.67, 2.30").
 func ppmList(ms []mplet, js []int) string {

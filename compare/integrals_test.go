@@ -83,14 +83,19 @@ func TestIntegralConflicts(t *testing.T) {
 		t.Errorf("two multiplets, envelope short: %q", rs)
 	}
 	// Without a conflict, an excess of 4 H (67 %) in one multiplet is
-	// named, unless water lies in it (CDCl3 water at 1.56, table).
+	// named; water in it (CDCl3 water at 1.56, table) excuses up to 3 H.
 	ev, ms = conflictCase(1, [][]float64{{3, 3}, {2, 2}, {3, 3}, {10, 2, 2, 2}}, []float64{3.67, 2.30, 0.88, 1.30})
 	if rs := ev.integralConflicts(ms); len(rs) != 1 || !strings.Contains(rs[0], "the multiplet at 1.30 holds 10.0 H where 6 are expected") {
 		t.Errorf("excess on the fitted scale: %q", rs)
 	}
-	ev, ms = conflictCase(1, [][]float64{{3, 3}, {2, 2}, {3, 3}, {10, 2, 2, 2}}, []float64{3.67, 2.30, 0.88, 1.55})
+	ev, ms = conflictCase(1, [][]float64{{3, 3}, {2, 2}, {3, 3}, {8.5, 2, 2, 2}}, []float64{3.67, 2.30, 0.88, 1.55})
 	if rs := ev.integralConflicts(ms); len(rs) != 0 {
-		t.Errorf("excess under the water line: %q", rs)
+		t.Errorf("excess of 2.5 H under the water line: %q", rs)
+	}
+	// Water excuses at most waterExcuseH (3 H): 4 H more is named.
+	ev, ms = conflictCase(1, [][]float64{{3, 3}, {2, 2}, {3, 3}, {10, 2, 2, 2}}, []float64{3.67, 2.30, 0.88, 1.55})
+	if rs := ev.integralConflicts(ms); len(rs) != 1 {
+		t.Errorf("excess of 4 H under the water line: %q", rs)
 	}
 	// An excess of 1.5 H stays below offH.
 	ev, ms = conflictCase(1, [][]float64{{3, 3}, {2, 2}, {3, 3}, {3.5, 2}}, []float64{3.67, 2.30, 0.88, 1.30})

@@ -368,7 +368,7 @@ func fitScale(sig []predict.Signal, ms []mplet, sigM []int, penalty []float64) (
 	acc := 0.0
 	for _, x := range rs {
 		acc += x.w
-		if acc >= total/2 {
+		if acc > total/2 {
 			scale = x.r
 			break
 		}

@@ -76,3 +76,27 @@ func TestQNMROver100(t *testing.T) {
 		}
 	}
 }
+
+// TestLowPurityReview: a qNMR mass purity or a molar purity below 80 %
+// asks for review with the reason, whatever the structure's fit (our own
+// rule; a sample that is mostly something else is not released on a
+// structure match). The same spectrum with the sample mass entered 2.5
+// times too high (33.3 % by qNMR) and with 0.7 mol of 1,3,5-trimethoxy-
+// benzene per mol of compound counted as an impurity (molar purity 58.8 %).
+func TestLowPurityReview(t *testing.T) {
+	t.Parallel()
+	const compound, std = "COC(=O)c1ccc(cc1)[N+](=O)[O-]", "COc1cc(OC)cc(OC)c1"
+	const mx, mstd = 181.147, 168.192
+	stdMg := 0.40 * (10.0 / mx) * mstd
+	r := synth.Recipe{FieldMHz: 400, Seed: 5, Satellites: true, Extra: []synth.Singlet{cdcl3Water},
+		Components: []synth.Component{{Smiles: compound, Moles: 1, Jitter: 0.01}, {Smiles: std, Moles: 0.40}}}
+	res := synthCheck(t, r, Input{Smiles: compound, Standard: &Standard{Smiles: std, MassMg: stdMg, SampleMassMg: 30.0, PurityPct: 100}})
+	if res.Verdict == Consistent || !strings.Contains(strings.Join(res.Reasons, " "), "qNMR mass purity is 33") {
+		t.Errorf("qNMR 33 %%: verdict %s, reasons %q", res.Verdict, res.Reasons)
+	}
+	r.Components[1].Moles = 0.70
+	res = synthCheck(t, r, Input{Smiles: compound, Impurities: []string{std}})
+	if res.Verdict == Consistent || !strings.Contains(strings.Join(res.Reasons, " "), "molar purity by integrals is") {
+		t.Errorf("molar 58.8 %%: verdict %s, purity %v, reasons %q", res.Verdict, res.Purity.MolarPercent, res.Reasons)
+	}
+}

@@ -72,6 +72,10 @@ type Options struct {
 	// MaxCandidates caps the number of candidate structures scored (work cap);
 	// 0 means 20.
 	MaxCandidates int
+	// MinPurityPct is the purity (molar by integrals, or qNMR mass %) below
+	// which the verdict is at least review: the lab's release
+	// specification. 0 means DefaultMinPurity.
+	MinPurityPct float64
 }
 
 // Result is the outcome of Check. Its JSON form is fixed (keys verdict,

@@ -32,6 +32,7 @@ type checkOptions struct {
 	standardPurity            float64
 	standardSignal            float64
 	minSNR                    float64
+	minPurity                 float64
 	json                      bool
 	report                    string            // HTML report path, "" for none
 	predictor                 compare.Predictor // tests substitute hand-made predictions
@@ -123,6 +124,7 @@ func newCheckCmd(f *Factory) *cobra.Command {
 	fl.Float64Var(&o.standardPurity, "standard-purity", 0, "purity of the internal standard, mass %")
 	fl.Float64Var(&o.standardSignal, "standard-signal", 0, "shift of the standard's signal to integrate, ppm (default: its largest)")
 	fl.Float64Var(&o.minSNR, "min-snr", 0, "peak-picking threshold in noise SDs (default: processing's)")
+	fl.Float64Var(&o.minPurity, "min-purity", 0, "purity in % below which the verdict is at least review: your release specification (default 80)")
 	fl.BoolVar(&o.json, "json", false, "print the result as JSON")
 	fl.StringVar(&o.report, "report", "", "also write a self-contained HTML report to `FILE`")
 	cmd.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return withCode(exitError, err) })
@@ -142,6 +144,9 @@ func (o *checkOptions) validate(set func(name string) bool) error {
 	}
 	if set("min-snr") && !(o.minSNR > 0 && o.minSNR <= maxMinSNR) {
 		return fmt.Errorf("check: --min-snr must be a number of noise SDs in (0, %g], found %v", maxMinSNR, o.minSNR)
+	}
+	if set("min-purity") && !(o.minPurity > 0 && o.minPurity <= 100) {
+		return fmt.Errorf("check: --min-purity must be a percentage in (0, 100], found %v", o.minPurity)
 	}
 	if err := o.validateQNMR(set); err != nil {
 		return err
@@ -224,7 +229,7 @@ func runCheck(f *Factory, o *checkOptions, set func(string) bool) error {
 		in.Standard = &compare.Standard{Smiles: o.standard, MassMg: o.standardMass, SampleMassMg: o.sampleMass,
 			PurityPct: o.standardPurity, SignalPPM: o.standardSignal}
 	}
-	res, err := compare.Check(in, compare.Options{FieldMHz: o.field, Solvent: o.solvent, MinSNR: o.minSNR, Predictor: o.predictor})
+	res, err := compare.Check(in, compare.Options{FieldMHz: o.field, Solvent: o.solvent, MinSNR: o.minSNR, MinPurityPct: o.minPurity, Predictor: o.predictor})
 	if err != nil {
 		return withCode(exitError, err)
 	}

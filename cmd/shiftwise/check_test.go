@@ -233,7 +233,7 @@ func TestCheckCommandStandardSignalAbsent(t *testing.T) {
 	path := butanoneWithJCAMP(t, []specLine{{6.09, 1.5}, {3.77, 4.5}})
 	args := func(sig string) []string {
 		return []string{"--smiles", "CCC(C)=O", path, "--json", "--standard", "COc1cc(OC)cc(OC)c1",
-			"--standard-mass", "10", "--sample-mass", "20", "--standard-purity", "99.9", "--standard-signal", sig}
+			"--standard-mass", "10", "--sample-mass", "10", "--standard-purity", "99.9", "--standard-signal", sig}
 	}
 	type result struct {
 		Verdict string   `json:"verdict"`
@@ -256,9 +256,23 @@ func TestCheckCommandStandardSignalAbsent(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &r); err != nil {
 		t.Fatalf("exit %d: %v\n%s", code, err, errOut)
 	}
-	// qNMR equation: n(butanone)/n(standard) = 2, so P = 2·(72.11/168.19)·(10/20)·99.9 = 42.83 %
+	// qNMR equation: n(butanone)/n(standard) = 2, so P = 2·(72.11/168.19)·(10/10)·99.9 = 85.66 %
 	// (molar masses from IUPAC standard atomic weights; hand-computed).
-	if code != exitOK || r.Purity.QNMRMassPercent == nil || math.Abs(*r.Purity.QNMRMassPercent-42.83) > 1 {
+	if code != exitOK || r.Purity.QNMRMassPercent == nil || math.Abs(*r.Purity.QNMRMassPercent-85.66) > 1 {
 		t.Errorf("signal 6.09: exit %d, verdict %s, qNMR %v, reasons %q", code, r.Verdict, r.Purity.QNMRMassPercent, r.Reasons)
+	}
+	// A release specification of 90 % (--min-purity) turns the same
+	// 85.7 % assay into a review with the reason; an out-of-range value is
+	// a usage error.
+	code, out, errOut = runCheckCmd(append(args("6.09"), "--min-purity", "90"), false)
+	r = result{}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatalf("exit %d: %v\n%s", code, err, errOut)
+	}
+	if code != exitReview || !strings.Contains(strings.Join(r.Reasons, "|"), "qNMR mass purity is 85.") {
+		t.Errorf("--min-purity 90: exit %d, verdict %s, reasons %q", code, r.Verdict, r.Reasons)
+	}
+	if code, _, errOut := runCheckCmd(append(args("6.09"), "--min-purity", "150"), false); code != exitError || !strings.Contains(errOut, "--min-purity") {
+		t.Errorf("--min-purity 150: exit %d, %s", code, errOut)
 	}
 }
