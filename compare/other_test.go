@@ -10,8 +10,9 @@ import (
 // reference set (synthesised from our own prediction with shift jitter;
 // invented data) checked as the structure of another compound of the set
 // (three others each, at 60 and 400 MHz) must not pass as consistent: a
-// false pass can release the wrong material. Measured 2026-12-02: 8 of 138
-// pass at 60 MHz and 2 of 138 at 400 MHz, all positional isomers or
+// false pass can release the wrong material. Measured 2026-12-02: 6 of 138
+// pass at 60 MHz (8 before the upper-median integral scale of that day)
+// and 2 of 138 at 400 MHz, all positional isomers or
 // near-identical benchtop envelopes (methylanisoles, methoxy- and
 // chlorobenzaldehydes, nitrotoluenes, 2-nitrotoluene as acetophenone and
 // propylbenzene as cumene at 60 MHz, butyl acetate as 1-bromobutane at 60
@@ -22,7 +23,7 @@ import (
 // counts plus one.
 func TestOtherCompoundsRejected(t *testing.T) {
 	slowParallel(t, "276 checks")
-	max := map[float64]int{60: 9, 400: 3}
+	max := map[float64]int{60: 7, 400: 3}
 	for _, field := range []float64{60, 400} {
 		pass, n := 0, 0
 		for k, c := range refSet {
