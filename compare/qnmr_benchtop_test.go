@@ -52,11 +52,7 @@ func TestQNMRAcrossFields(t *testing.T) {
 // definition): the verdict is at least review and the reason says so.
 func TestQNMROver100(t *testing.T) {
 	t.Parallel()
-	const compound, std = "COC(=O)c1ccc(cc1)[N+](=O)[O-]", "COc1cc(OC)cc(OC)c1"
-	const mx, mstd = 181.147, 168.192
-	stdMg := 0.40 * (10.0 / mx) * mstd
-	r := synth.Recipe{FieldMHz: 400, Seed: 5, Satellites: true, Extra: []synth.Singlet{cdcl3Water},
-		Components: []synth.Component{{Smiles: compound, Moles: 1, Jitter: 0.01}, {Smiles: std, Moles: 0.40}}}
+	r, stdMg := nitrobenzoateAssay()
 	spec, err := synth.Make(r)
 	if err != nil {
 		t.Fatal(err)
@@ -65,8 +61,8 @@ func TestQNMROver100(t *testing.T) {
 		mg     float64
 		review bool
 	}{{stdMg, false}, {2.5 * stdMg, true}} {
-		res, err := Check(Input{Smiles: compound, Spectrum: spec,
-			Standard: &Standard{Smiles: std, MassMg: c.mg, SampleMassMg: 12.0, PurityPct: 100}}, Options{})
+		res, err := Check(Input{Smiles: assayCompound, Spectrum: spec,
+			Standard: &Standard{Smiles: assayStandard, MassMg: c.mg, SampleMassMg: 12.0, PurityPct: 100}}, Options{})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -85,11 +81,8 @@ func TestQNMROver100(t *testing.T) {
 // benzene per mol of compound counted as an impurity (molar purity 58.8 %).
 func TestLowPurityReview(t *testing.T) {
 	t.Parallel()
-	const compound, std = "COC(=O)c1ccc(cc1)[N+](=O)[O-]", "COc1cc(OC)cc(OC)c1"
-	const mx, mstd = 181.147, 168.192
-	stdMg := 0.40 * (10.0 / mx) * mstd
-	r := synth.Recipe{FieldMHz: 400, Seed: 5, Satellites: true, Extra: []synth.Singlet{cdcl3Water},
-		Components: []synth.Component{{Smiles: compound, Moles: 1, Jitter: 0.01}, {Smiles: std, Moles: 0.40}}}
+	r, stdMg := nitrobenzoateAssay()
+	compound, std := assayCompound, assayStandard
 	res := synthCheck(t, r, Input{Smiles: compound, Standard: &Standard{Smiles: std, MassMg: stdMg, SampleMassMg: 30.0, PurityPct: 100}})
 	if res.Verdict == Consistent || !strings.Contains(strings.Join(res.Reasons, " "), "qNMR mass purity is 33") {
 		t.Errorf("qNMR 33 %%: verdict %s, reasons %q", res.Verdict, res.Reasons)
@@ -99,4 +92,17 @@ func TestLowPurityReview(t *testing.T) {
 	if res.Verdict == Consistent || !strings.Contains(strings.Join(res.Reasons, " "), "molar purity by integrals is") {
 		t.Errorf("molar 58.8 %%: verdict %s, purity %v, reasons %q", res.Verdict, res.Purity.MolarPercent, res.Reasons)
 	}
+}
+
+// The assay scenario of the qNMR tests (invented data): methyl
+// 4-nitrobenzoate with 0.40 mol of 1,3,5-trimethoxybenzene per mol, at
+// 400 MHz; stdMg is the standard's mass for 10.0 mg of compound (molar
+// masses from standard atomic weights).
+const assayCompound, assayStandard = "COC(=O)c1ccc(cc1)[N+](=O)[O-]", "COc1cc(OC)cc(OC)c1"
+
+func nitrobenzoateAssay() (synth.Recipe, float64) {
+	const mx, mstd = 181.147, 168.192
+	r := synth.Recipe{FieldMHz: 400, Seed: 5, Satellites: true, Extra: []synth.Singlet{cdcl3Water},
+		Components: []synth.Component{{Smiles: assayCompound, Moles: 1, Jitter: 0.01}, {Smiles: assayStandard, Moles: 0.40}}}
+	return r, 0.40 * (10.0 / mx) * mstd
 }
