@@ -89,44 +89,26 @@ func overlapped(m mplet, win [][2]float64) bool {
 // compound's multiplet grouped apart by processing, an aromatic
 // multiplet shared with the compound) thus no longer inflates the amount.
 func extraAmount(ms []mplet, hits []extraHit, scale float64, win [][2]float64) float64 {
-	type est struct{ a, w float64 }
-	var clean, all []est
+	var clean []weighted
+	lo := math.Inf(1)
 	for _, h := range hits {
 		if h.sig.NH <= 0 {
 			continue
 		}
-		e := est{ms[h.j].area * scale / float64(h.sig.NH), float64(h.sig.NH)}
-		all = append(all, e)
+		a := ms[h.j].area * scale / float64(h.sig.NH)
+		lo = math.Min(lo, a)
 		if !overlapped(ms[h.j], win) {
-			clean = append(clean, e)
+			clean = append(clean, weighted{a, float64(h.sig.NH)})
 		}
 	}
-	if len(all) == 0 {
+	if math.IsInf(lo, 1) {
 		return 0
 	}
 	if len(clean) == 0 {
-		lo := math.Inf(1)
-		for _, e := range all {
-			lo = math.Min(lo, e.a)
-		}
 		return lo
 	}
-	sort.Slice(clean, func(a, b int) bool { return clean[a].a < clean[b].a })
-	tot := 0.0
-	for _, e := range clean {
-		tot += e.w
-	}
-	// The weighted median; where the cumulative weight reaches exactly
-	// half, the upper of the two middle values: a signal matched to a
-	// stray line (a 13C satellite of a compound line) gives a tiny
-	// amount, and with the lower value it decided (1-propanol with 5 mol %
-	// methyl phenylacetate read as 0.08 %).
-	acc := 0.0
-	for _, e := range clean {
-		acc += e.w
-		if acc > tot/2 {
-			return e.a
-		}
-	}
-	return clean[len(clean)-1].a
+	// The weighted (upper) median: with the lower one a signal matched to
+	// a stray line (a 13C satellite of a compound line) decided at a tie
+	// (1-propanol with 5 mol % methyl phenylacetate read as 0.08 %).
+	return weightedMedian(clean)
 }

@@ -88,8 +88,8 @@ func (f *benchtopFinds) count(c refCompound, res *Result) {
 // mode (exact or fragment simulation of strongly coupled clusters) and, for
 // contrast, first-order. Measured 2026-12-02 (true consistent / wrong
 // candidate rejected or ranked lower / wrong as intended flagged, of 46):
-// 60 MHz auto 46/41/36, first-order 46/39/36; 90 MHz auto 46/43/36,
-// first-order 46/41/38. At 300–600 MHz the third figure is 43
+// 60 MHz auto 46/41/36, first-order 46/40/36; 90 MHz auto 46/43/36,
+// first-order 46/42/38. At 300–600 MHz the third figure is 43
 // (TestReferenceSetWrongIntended): at benchtop fields ten positional
 // isomers (methylanisoles, chlorobenzaldehydes, dimethoxybenzenes, E/Z
 // esters …) pass as the intended structure, which the check's benchtop
@@ -130,7 +130,8 @@ func TestReferenceSetBenchtop(t *testing.T) {
 }
 
 // TestGivenImpurityAbsent: a structure given as a possible impurity
-// (--impurity) that is not in the tube must not be named. Each compound of
+// (--impurity) that is not in the tube must not be named (common practice,
+// no source: a false identification misstates the composition). Each compound of
 // the reference set (its spectrum without contaminant or impurity) is
 // checked with every impurity structure of the set and a few common
 // ones (acetophenone, benzaldehyde, ethyl acetate, phenol, acetone,

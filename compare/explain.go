@@ -600,24 +600,15 @@ const (
 // than its lines are wide: a broad line (water, 4 Hz) with a noise bump on
 // its top reads as a "d" of 1.4 Hz, which is no resolved doublet.
 func resolvedMult(m mplet) string {
-	if len(m.j) == 0 || len(m.pk) == 0 {
+	w, ok := medianPeakWidth(m)
+	if len(m.j) == 0 || !ok {
 		return m.mult
 	}
-	ws := make([]float64, 0, len(m.pk))
-	for _, p := range m.pk {
-		if p.WidthHz > 0 {
-			ws = append(ws, p.WidthHz)
-		}
-	}
-	if len(ws) == 0 {
-		return m.mult
-	}
-	sort.Float64s(ws)
 	jmax := 0.0
 	for _, j := range m.j {
 		jmax = math.Max(jmax, j)
 	}
-	if jmax < ws[len(ws)/2] {
+	if jmax < w {
 		return "m"
 	}
 	return m.mult

@@ -87,23 +87,13 @@ func (ev *evaluation) integralConflicts(ms []mplet) []string {
 		return nil
 	}
 	sort.Slice(vs, func(a, b int) bool { return vs[a].r < vs[b].r || vs[a].r == vs[b].r && vs[a].j < vs[b].j })
-	total := 0.0
+	var untainted []weighted
 	for _, v := range vs {
 		if !v.tainted {
-			total += v.w
+			untainted = append(untainted, weighted{v.r, v.w})
 		}
 	}
-	cons, acc := 0.0, 0.0
-	for _, v := range vs {
-		if v.tainted {
-			continue
-		}
-		acc += v.w
-		if acc >= total/2 {
-			cons = v.r
-			break
-		}
-	}
+	cons := weightedMedian(untainted)
 	if !(cons > 0) {
 		return nil
 	}

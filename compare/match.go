@@ -352,33 +352,50 @@ func fitScale(sig []predict.Signal, ms []mplet, sigM []int, penalty []float64) (
 			hAt[j] += float64(sig[i].NH)
 		}
 	}
-	type rw struct{ r, w float64 }
-	var rs []rw
+	var rs []weighted
+	total := 0.0
 	for j, h := range hAt {
-		rs = append(rs, rw{h / ms[j].area, h})
+		rs = append(rs, weighted{h / ms[j].area, h})
+		total += h
 	}
 	if len(rs) == 0 {
 		return 0, 0
 	}
-	sort.Slice(rs, func(a, b int) bool { return rs[a].r < rs[b].r })
-	total := 0.0
-	for _, x := range rs {
-		total += x.w
-	}
-	acc := 0.0
-	for _, x := range rs {
-		acc += x.w
-		if acc > total/2 {
-			scale = x.r
-			break
-		}
-	}
+	scale = weightedMedian(rs)
 	// Robust relative spread: weighted mean absolute log deviation.
 	dev := 0.0
 	for _, x := range rs {
-		dev += x.w * math.Abs(math.Log(x.r/scale))
+		dev += x.w * math.Abs(math.Log(x.v/scale))
 	}
 	return scale, 1.2533 * dev / total // MAD→SD factor √(π/2) for the mean absolute deviation
+}
+
+// weighted is a value with its weight (> 0), for weightedMedian.
+type weighted struct{ v, w float64 }
+
+// weightedMedian returns the smallest value at which the cumulative weight
+// passes half the total: at an exact half-weight tie, the upper of the two
+// middle values. Weights are whole H counts, so ties are common, and the
+// lower value let multiplets inflated by another species set the integral
+// scale (ethyl crotonate with diethyl succinate) and a stray line decide an
+// impurity's amount. xs is sorted in place; 0 for none.
+func weightedMedian(xs []weighted) float64 {
+	if len(xs) == 0 {
+		return 0
+	}
+	sort.Slice(xs, func(a, b int) bool { return xs[a].v < xs[b].v })
+	total := 0.0
+	for _, x := range xs {
+		total += x.w
+	}
+	acc := 0.0
+	for _, x := range xs {
+		acc += x.w
+		if acc > total/2 {
+			return x.v
+		}
+	}
+	return xs[len(xs)-1].v
 }
 
 // initialScale divides the non-exchangeable H by the area of the available

@@ -10,7 +10,7 @@ import (
 // reference set (synthesised from our own prediction with shift jitter;
 // invented data) checked as the structure of another compound of the set
 // (three others each, at 60 and 400 MHz) must not pass as consistent: a
-// false pass can release the wrong material. Measured 2026-12-02: 6 of 138
+// false pass can release the wrong material (common practice, no source). Measured 2026-12-02: 6 of 138
 // pass at 60 MHz (8 before the upper-median integral scale of that day)
 // and 2 of 138 at 400 MHz, all positional isomers or
 // near-identical benchtop envelopes (methylanisoles, methoxy- and

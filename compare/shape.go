@@ -61,17 +61,8 @@ func (ev *evaluation) multipletShape(m mplet, sigs []int, trace *spectrum.Spectr
 	centre /= nh
 	delta := m.ppm - centre
 	width := 1.0 // Hz, FWHM
-	if len(m.pk) > 0 {
-		ws := make([]float64, 0, len(m.pk))
-		for _, p := range m.pk {
-			if p.WidthHz > 0 {
-				ws = append(ws, p.WidthHz)
-			}
-		}
-		if len(ws) > 0 {
-			sort.Float64s(ws)
-			width = math.Max(0.3, ws[len(ws)/2])
-		}
+	if w, ok := medianPeakWidth(m); ok {
+		width = math.Max(0.3, w)
 	}
 	g := width / 2 / field // half width at half height, ppm
 	n := hi - lo
@@ -96,6 +87,22 @@ func (ev *evaluation) multipletShape(m mplet, sigs []int, trace *spectrum.Spectr
 		}
 	}
 	return pearson(model, trace.Y[lo:hi]), true
+}
+
+// medianPeakWidth is the median full width at half height (Hz) of m's
+// peaks that report one; ok is false when none does.
+func medianPeakWidth(m mplet) (float64, bool) {
+	ws := make([]float64, 0, len(m.pk))
+	for _, p := range m.pk {
+		if p.WidthHz > 0 {
+			ws = append(ws, p.WidthHz)
+		}
+	}
+	if len(ws) == 0 {
+		return 0, false
+	}
+	sort.Float64s(ws)
+	return ws[len(ws)/2], true
 }
 
 // uniformStep returns the step of x when its points are equally spaced

@@ -6,6 +6,7 @@ import (
 	"testing"
 	"time"
 
+	"shiftwise/graph"
 	"shiftwise/predict/spin"
 	"shiftwise/smiles"
 )
@@ -66,25 +67,33 @@ func BenchmarkPredict40(b *testing.B) {
 	b.Run("first-order", func(b *testing.B) { benchPredict(b, lapatinib, 40, spin.FirstOrder) })
 }
 
+// benchAtFields runs body as a sub-benchmark per field ("60MHz") with smi
+// parsed once.
+func benchAtFields(b *testing.B, smi string, fields []float64, body func(b *testing.B, m *graph.Mol, field float64)) {
+	m, err := smiles.Parse(smi)
+	if err != nil {
+		b.Fatal(err)
+	}
+	for _, field := range fields {
+		b.Run(fmt.Sprintf("%gMHz", field), func(b *testing.B) {
+			b.ReportAllocs()
+			body(b, m, field)
+		})
+	}
+}
+
 // BenchmarkPredictAlkyl predicts methyl stearate (21 heavy atoms) in auto
 // mode at 400 and 60 MHz: its CH2 groups form one strongly coupled
 // cluster, simulated by fragments.
 func BenchmarkPredictAlkyl(b *testing.B) {
 	const smi = "CCCCCCCCCCCCCCCCCC(=O)OC"
-	for _, field := range []float64{400, 60} {
-		b.Run(fmt.Sprintf("%gMHz", field), func(b *testing.B) {
-			m, err := smiles.Parse(smi)
-			if err != nil {
+	benchAtFields(b, smi, []float64{400, 60}, func(b *testing.B, m *graph.Mol, field float64) {
+		for b.Loop() {
+			if _, err := Predict(m, smi, Options{FieldMHz: field}); err != nil {
 				b.Fatal(err)
 			}
-			b.ReportAllocs()
-			for b.Loop() {
-				if _, err := Predict(m, smi, Options{FieldMHz: field}); err != nil {
-					b.Fatal(err)
-				}
-			}
-		})
-	}
+		}
+	})
 }
 
 // BenchmarkRender draws 1-hexanol's predicted spectrum (about 77,000 exact
@@ -93,21 +102,14 @@ func BenchmarkPredictAlkyl(b *testing.B) {
 // serves 60 MHz; 400 MHz (grid step γ/6) is drawn line by line.
 func BenchmarkRender(b *testing.B) {
 	const smi = "CCCCCCO"
-	for _, field := range []float64{60, 400} {
-		b.Run(fmt.Sprintf("%gMHz", field), func(b *testing.B) {
-			m, err := smiles.Parse(smi)
-			if err != nil {
-				b.Fatal(err)
-			}
-			p, err := Predict(m, smi, Options{FieldMHz: field})
-			if err != nil {
-				b.Fatal(err)
-			}
-			b.ReportMetric(float64(len(p.Lines)), "lines")
-			b.ReportAllocs()
-			for b.Loop() {
-				Render(p, -1, 11, 1<<16, 0.9)
-			}
-		})
-	}
+	benchAtFields(b, smi, []float64{60, 400}, func(b *testing.B, m *graph.Mol, field float64) {
+		p, err := Predict(m, smi, Options{FieldMHz: field})
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.ReportMetric(float64(len(p.Lines)), "lines")
+		for b.Loop() {
+			Render(p, -1, 11, 1<<16, 0.9)
+		}
+	})
 }

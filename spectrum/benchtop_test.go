@@ -132,7 +132,8 @@ func TestBenchtopNeighboursApart(t *testing.T) {
 // TestBroadLineMargin: one broad line among the narrow lines of a
 // multiplet (a shoulder fitted as a 15 Hz line) must not stretch the
 // integration region by five of its widths (1.25 ppm at 60 MHz); the region
-// margin counts at most three median widths.
+// margin counts at most three median widths (our own rule; the arithmetic
+// of the region is checked).
 func TestBroadLineMargin(t *testing.T) {
 	t.Parallel()
 	ls := []line{{ppm: 1.00, widthHz: 1.5}, {ppm: 1.05, widthHz: 15}, {ppm: 1.10, widthHz: 1.5}, {ppm: 1.15, widthHz: 1.5}}
